@@ -1,0 +1,20 @@
+import { can, type Permission } from '#shared/utils/permissions'
+
+export interface NavItem {
+  to: string
+  label: string
+  permission?: Permission
+}
+
+// Only pages that exist are listed; each is shown to the roles that may use it.
+const NAV_ITEMS: NavItem[] = [
+  { to: '/', label: 'Home' },
+  { to: '/units', label: 'Units', permission: 'equipment:read' },
+  { to: '/admin/users', label: 'Users', permission: 'users:manage' },
+]
+
+/** Navigation entries the signed-in user's role may use. */
+export function useNavigation() {
+  const { user } = useUserSession()
+  return computed(() => NAV_ITEMS.filter((item) => !item.permission || can(user.value?.role, item.permission)))
+}

@@ -1,0 +1,38 @@
+// Rimecase Nuxt configuration. Versions are pinned for Node 20 (see README "Stack").
+export default defineNuxtConfig({
+  compatibilityDate: '2026-07-01',
+  devtools: { enabled: false },
+  telemetry: false,
+  modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
+  css: [
+    '@fontsource/atkinson-hyperlegible-next/400.css',
+    '@fontsource/atkinson-hyperlegible-next/700.css',
+    '@fontsource/atkinson-hyperlegible-mono/400.css',
+    '@fontsource/atkinson-hyperlegible-mono/700.css',
+  ],
+  tailwindcss: { viewer: false, cssPath: '~/assets/css/tailwind.css' },
+  app: {
+    head: {
+      htmlAttrs: { lang: 'en' },
+      title: 'Rimecase',
+      meta: [
+        { name: 'viewport', content: 'width=device-width, initial-scale=1, viewport-fit=cover' },
+        { name: 'description', content: 'Rimecase: guided fault-finding for ultra-low-temperature refrigeration' },
+      ],
+      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+    },
+  },
+  runtimeConfig: {
+    databaseUrl: '',
+    uploadDir: '.data/uploads',
+    uploadDriver: 'fs',
+    s3: { accessKeyId: '', secretAccessKey: '', endpoint: '', bucket: '', region: '' },
+    smtp: { host: '127.0.0.1', port: 2525, from: 'Rimecase <reports@rimecase.local>', outboxDir: '.data/outbox' },
+    testRoutes: false,
+    session: { cookie: { secure: false }, maxAge: 60 * 60 * 12 },
+  },
+  nitro: {
+    experimental: { tasks: false },
+  },
+  typescript: { strict: true },
+})

@@ -1,0 +1,97 @@
+#!/usr/bin/env node
+// `npm start`: installs what is missing, starts PostgreSQL (embedded under .data/postgres unless
+// DATABASE_URL is set), migrates, seeds the demo, builds and serves Rimecase on 127.0.0.1.
+// Only Node built-ins are imported at the top: packages may not be installed yet.
+import { existsSync, mkdirSync, readFileSync } from 'node:fs'
+import { join } from 'node:path'
+import { ROOT, ensureNodeModules, ensurePostgresBinaries, portInUse, freePort, startChild, step, waitForHttp } from './lib/system.mjs'
+import { DEMO_SIGN_INS, buildIfStale, ensureSessionSecret, migrateAndSeed } from './lib/project.mjs'
+
+const DEFAULT_PG_PORT = 54329
+const cleanups = []
+let stopping = false
+
+async function shutdown(code) {
+  if (stopping) return
+  stopping = true
+  for (const cleanup of cleanups.reverse()) {
+    try {
+      await cleanup()
+    } catch (error) {
+      console.error(error)
+    }
+  }
+  process.exit(code)
+}
+process.on('SIGINT', () => shutdown(0))
+process.on('SIGTERM', () => shutdown(0))
+
+async function database(env) {
+  const url = process.env.DATABASE_URL || env.DATABASE_URL
+  if (url) {
+    step('Using the PostgreSQL given by DATABASE_URL')
+    return url
+  }
+  const bin = ensurePostgresBinaries()
+  const { startCluster } = await import('./lib/postgres.mjs')
+  const dataDir = join(ROOT, '.data', 'postgres')
+  mkdirSync(join(ROOT, '.data'), { recursive: true })
+  const stateFile = join(dataDir, 'rimecase-cluster.json')
+  const savedPort = existsSync(stateFile) ? JSON.parse(readFileSync(stateFile, 'utf8')).port : DEFAULT_PG_PORT
+  const running = existsSync(join(dataDir, 'postmaster.pid'))
+  const port = running || !(await portInUse(savedPort)) ? savedPort : await freePort()
+  const cluster = await startCluster({ bin, dataDir, port })
+  cleanups.push(() => cluster.stop())
+  return cluster.url
+}
+
+async function main() {
+  ensureNodeModules()
+  const env = ensureSessionSecret()
+  const databaseUrl = await database(env)
+  migrateAndSeed(databaseUrl)
+  buildIfStale()
+
+  const { startSmtpFake } = await import('./lib/smtp.mjs')
+  const smtp = await startSmtpFake({ port: Number(process.env.SMTP_PORT || env.SMTP_PORT || 0) })
+  cleanups.push(() => smtp.close())
+
+  const port = Number(process.env.PORT || 3000)
+  const host = '127.0.0.1'
+  const app = startChild('app', process.execPath, ['.output/server/index.mjs'], {
+    ...env,
+    HOST: host,
+    PORT: String(port),
+    NITRO_HOST: host,
+    NITRO_PORT: String(port),
+    NUXT_DATABASE_URL: databaseUrl,
+    NUXT_SMTP_HOST: '127.0.0.1',
+    NUXT_SMTP_PORT: String(smtp.port),
+    NUXT_SESSION_PASSWORD: env.NUXT_SESSION_PASSWORD,
+  })
+  cleanups.push(
+    () =>
+      new Promise((resolve) => {
+        if (app.exitCode !== null) return resolve()
+        app.once('exit', resolve)
+        app.kill('SIGTERM')
+      }),
+  )
+  app.once('exit', (code) => {
+    if (!stopping) {
+      console.error(`The app stopped (exit ${code}).`)
+      shutdown(code || 1)
+    }
+  })
+  await waitForHttp(`http://${host}:${port}/api/health`)
+  console.log(`\n  Rimecase is running at \x1b[1mhttp://${host}:${port}\x1b[0m`)
+  console.log(`  Mail to customers is caught by the local SMTP fake on 127.0.0.1:${smtp.port} (Outbox page, admins).`)
+  console.log('  Demo sign-ins (password: rimecase-demo):')
+  for (const [role, email] of DEMO_SIGN_INS) console.log(`    ${email.padEnd(26)} ${role}`)
+  console.log('  Press Ctrl-C to stop the app and PostgreSQL.\n')
+}
+
+main().catch(async (error) => {
+  console.error(`\nnpm start failed: ${error instanceof Error ? error.message : error}`)
+  await shutdown(1)
+})

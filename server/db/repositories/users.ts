@@ -1,0 +1,56 @@
+import type { Role } from '#shared/utils/permissions'
+import { Organisation, User } from '../models'
+
+export interface UserRecord {
+  id: number
+  organisationId: number
+  email: string
+  name: string
+  role: Role
+  active: boolean
+  createdAt: Date
+}
+const plain = (u: User): UserRecord => ({
+  id: u.id, organisationId: u.organisationId, email: u.email, name: u.name, role: u.role, active: u.active, createdAt: u.createdAt,
+})
+
+/** The user with this e-mail and its password hash, or null. */
+export async function findUserForLogin(email: string) {
+  const user = await User.findOne({ where: { email: email.toLowerCase() } })
+  return user ? { ...plain(user), passwordHash: user.passwordHash } : null
+}
+
+/** The active user with this id, or null (deactivated users count as absent). */
+export async function findActiveUser(id: number): Promise<UserRecord | null> {
+  const user = await User.findOne({ where: { id, active: true } })
+  return user ? plain(user) : null
+}
+
+/** All users of one organisation, by name. */
+export async function listUsers(organisationId: number): Promise<UserRecord[]> {
+  const users = await User.findAll({ where: { organisationId }, order: [['name', 'ASC']] })
+  return users.map(plain)
+}
+
+/** Creates a user in the organisation; the caller hashes the password. */
+export async function createUser(input: { organisationId: number; email: string; name: string; role: Role; passwordHash: string }) {
+  return plain(await User.create({ ...input, email: input.email.toLowerCase() }))
+}
+
+/** Updates role, name or active flag of a user of the organisation; null when not found there. */
+export async function updateUser(organisationId: number, id: number, changes: Partial<Pick<UserRecord, 'name' | 'role' | 'active'>>) {
+  const user = await User.findOne({ where: { id, organisationId } })
+  if (!user) return null
+  await user.update(changes)
+  return plain(user)
+}
+
+/** True when an account with this e-mail exists anywhere. */
+export async function emailTaken(email: string) {
+  return (await User.count({ where: { email: email.toLowerCase() } })) > 0
+}
+
+/** Name of an organisation. */
+export async function organisationName(id: number) {
+  return (await Organisation.findByPk(id))?.name ?? ''
+}

@@ -1,0 +1,18 @@
+// Small typed errors that domain code throws; server/utils/errors.ts maps them to HTTP statuses.
+
+/** The record does not exist, or belongs to another organisation (both are 404). */
+export class NotFoundError extends Error {
+  override name = 'NotFoundError'
+}
+/** The caller may not do this. */
+export class ForbiddenError extends Error {
+  override name = 'ForbiddenError'
+}
+/** The record changed since the caller read it, or its state refuses the change. */
+export class ConflictError extends Error {
+  override name = 'ConflictError'
+}
+/** The input is well-formed but describes an impossible or out-of-range state. */
+export class InvalidStateError extends Error {
+  override name = 'InvalidStateError'
+}

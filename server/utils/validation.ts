@@ -1,0 +1,50 @@
+import type { H3Event } from 'h3'
+import type { ZodError, ZodType } from 'zod'
+
+/** Turns a zod error into the API's 400: `{ statusCode, message, data: { fieldErrors } }`. */
+export function validationError(error: ZodError) {
+  const fieldErrors: Record<string, string[]> = {}
+  for (const issue of error.issues) {
+    const key = issue.path.map(String).join('.') || '_'
+    ;(fieldErrors[key] ??= []).push(issue.message)
+  }
+  const first = error.issues[0]
+  const where = first?.path.length ? `${first.path.map(String).join('.')}: ` : ''
+  return createError({
+    status: 400,
+    statusText: 'Bad Request',
+    message: `Invalid input. ${where}${first?.message ?? 'check the fields'}`,
+    data: { fieldErrors },
+  })
+}
+
+async function check<T>(read: Promise<{ success: true; data: T } | { success: false; error: ZodError }>): Promise<T> {
+  let result: Awaited<typeof read>
+  try {
+    result = await read
+  } catch (error) {
+    // e.g. a body that is not JSON: keep the 400 and give it the same shape as field errors.
+    const h3 = error as { statusCode?: number; message?: string }
+    if (h3.statusCode === 400) {
+      throw createError({ status: 400, statusText: 'Bad Request', message: h3.message || 'Malformed request', data: { fieldErrors: { _: [h3.message || 'Malformed request'] } } })
+    }
+    throw error
+  }
+  if (!result.success) throw validationError(result.error)
+  return result.data
+}
+
+/** Reads and validates the JSON body with `schema` (400 with field errors when it fails). */
+export function readBodyAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> {
+  return check(readValidatedBody(event, (body) => schema.safeParse(body ?? {})))
+}
+
+/** Validates the query string with `schema`. */
+export function readQueryAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> {
+  return check(getValidatedQuery(event, (query) => schema.safeParse(query)))
+}
+
+/** Validates the route parameters with `schema`. */
+export function readParamsAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> {
+  return check(getValidatedRouterParams(event, (params) => schema.safeParse(params)))
+}

@@ -1,0 +1,16 @@
+import type { Role } from '#shared/utils/permissions'
+
+declare module '#auth-utils' {
+  interface User {
+    id: number
+    email: string
+    name: string
+    role: Role
+    organisationId: number
+  }
+  interface UserSession {
+    loggedInAt: number
+  }
+}
+
+export {}

@@ -1,0 +1,33 @@
+// Roles and what each may do. The server's authorization helpers (server/utils/auth.ts) and the
+// app's navigation both read this table, so a permission is decided in exactly one place.
+
+export const ROLES = ['technician', 'engineer', 'trainer', 'admin'] as const
+export type Role = (typeof ROLES)[number]
+
+export const PERMISSIONS = {
+  'cases:work': ['technician', 'engineer', 'admin'],
+  'cases:read': ['technician', 'engineer', 'trainer', 'admin'],
+  'equipment:read': ['technician', 'engineer', 'trainer', 'admin'],
+  'equipment:edit': ['technician', 'engineer', 'admin'],
+  'calculator:use': ['technician', 'engineer', 'trainer', 'admin'],
+  'knowledge:read': ['technician', 'engineer', 'trainer', 'admin'],
+  'knowledge:author': ['engineer', 'admin'],
+  'training:run': ['trainer', 'engineer', 'admin'],
+  'users:manage': ['admin'],
+  'outbox:read': ['admin'],
+} as const satisfies Record<string, readonly Role[]>
+
+export type Permission = keyof typeof PERMISSIONS
+
+/** True when `role` holds `permission`. */
+export function can(role: Role | undefined | null, permission: Permission): boolean {
+  return !!role && (PERMISSIONS[permission] as readonly Role[]).includes(role)
+}
+
+/** Human label of a role, as shown in the app. */
+export const ROLE_LABELS: Record<Role, string> = {
+  technician: 'Technician',
+  engineer: 'Senior engineer',
+  trainer: 'Trainer',
+  admin: 'Administrator',
+}

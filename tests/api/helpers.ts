@@ -1,0 +1,57 @@
+// HTTP helpers for API tests: they drive the built server started by scripts/test.mjs.
+export const BASE_URL = process.env.RIMECASE_TEST_BASE_URL ?? 'http://127.0.0.1:3000'
+export const DEMO_PASSWORD = 'rimecase-demo'
+
+export interface ApiResponse<T = unknown> {
+  status: number
+  body: T
+  headers: Headers
+}
+
+/** A signed-in (or anonymous) client keeping its session cookie. */
+export class ApiClient {
+  cookie = ''
+
+  async request<T = any>(method: string, path: string, body?: unknown, init: RequestInit = {}): Promise<ApiResponse<T>> {
+    const headers: Record<string, string> = { accept: 'application/json', ...(init.headers as Record<string, string>) }
+    if (this.cookie) headers.cookie = this.cookie
+    let payload: BodyInit | undefined
+    if (body instanceof FormData || typeof body === 'string') payload = body
+    else if (body !== undefined) {
+      headers['content-type'] = 'application/json'
+      payload = JSON.stringify(body)
+    }
+    const res = await fetch(`${BASE_URL}${path}`, { ...init, method, headers, body: payload, redirect: 'manual' })
+    const setCookie = res.headers.getSetCookie().find((c) => c.startsWith('nuxt-session='))
+    if (setCookie) this.cookie = setCookie.split(';')[0]!
+    const type = res.headers.get('content-type') ?? ''
+    const parsed = res.status === 204 ? null : type.includes('json') ? await res.json() : await res.text()
+    return { status: res.status, body: parsed as T, headers: res.headers }
+  }
+
+  get<T = any>(path: string) {
+    return this.request<T>('GET', path)
+  }
+  post<T = any>(path: string, body?: unknown) {
+    return this.request<T>('POST', path, body ?? {})
+  }
+  patch<T = any>(path: string, body?: unknown) {
+    return this.request<T>('PATCH', path, body ?? {})
+  }
+}
+
+/** A client signed in as `email` (demo password unless given). */
+export async function signedIn(email: string, password = DEMO_PASSWORD): Promise<ApiClient> {
+  const client = new ApiClient()
+  const res = await client.post('/api/auth/login', { email, password })
+  if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`)
+  return client
+}
+
+export const DEMO = {
+  tech: 'tech@rimecase.demo',
+  engineer: 'engineer@rimecase.demo',
+  trainer: 'trainer@rimecase.demo',
+  admin: 'admin@rimecase.demo',
+  otherTech: 'tech@bluefen.demo',
+}

@@ -1,0 +1,29 @@
+import { fileURLToPath } from 'node:url'
+import { defineConfig } from 'vitest/config'
+
+const alias = {
+  '#shared': fileURLToPath(new URL('./shared', import.meta.url)),
+  '#server': fileURLToPath(new URL('./server', import.meta.url)),
+}
+
+// Two projects: `unit` runs pure modules in plain Node; `api` drives the built server over HTTP
+// against a real PostgreSQL started by scripts/test.mjs (RIMECASE_TEST_BASE_URL).
+export default defineConfig({
+  resolve: { alias },
+  test: {
+    projects: [
+      { resolve: { alias }, test: { name: 'unit', include: ['tests/unit/**/*.{test,spec}.ts'], environment: 'node' } },
+      {
+        resolve: { alias },
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.{test,spec}.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 30_000,
+          hookTimeout: 60_000,
+        },
+      },
+    ],
+  },
+})
