@@ -1,4 +1,5 @@
-import type { EquipmentClass, StageName, UnitKind } from './equipment'
+import type { Stage as StageName, UnitKind } from './diagnosis'
+import type { EquipmentClass } from './equipment'
 
 export interface UnitStageDto {
   stage: StageName

@@ -1,7 +1,5 @@
-// Equipment words shared by forms, the API and the diagnosis priors.
-export const UNIT_KINDS = ['cascade', 'single-stage'] as const
-export type UnitKind = (typeof UNIT_KINDS)[number]
-
+// Equipment words shared by forms, the API and the diagnosis priors. Unit kinds and stage names
+// live with the diagnosis vocabulary (shared/types/diagnosis.ts).
 export const EQUIPMENT_CLASSES = ['ult-freezer', 'cold-trap', 'test-chamber', 'freezer', 'cold-room', 'process-chiller'] as const
 export type EquipmentClass = (typeof EQUIPMENT_CLASSES)[number]
 
@@ -13,6 +11,3 @@ export const EQUIPMENT_CLASS_LABELS: Record<EquipmentClass, string> = {
   'cold-room': 'Cold room',
   'process-chiller': 'Process chiller',
 }
-
-export const STAGE_NAMES = ['high', 'low', 'single'] as const
-export type StageName = (typeof STAGE_NAMES)[number]

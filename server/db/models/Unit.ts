@@ -2,7 +2,8 @@ import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAtt
 import type { Organisation } from './Organisation'
 import type { Site } from './Site'
 
-import type { EquipmentClass, UnitKind } from '#shared/types/equipment'
+import type { UnitKind } from '#shared/types/diagnosis'
+import type { EquipmentClass } from '#shared/types/equipment'
 
 /** A refrigeration unit at a site: one stage (single-stage) or two (cascade). */
 export class Unit extends Model<InferAttributes<Unit>, InferCreationAttributes<Unit>> {

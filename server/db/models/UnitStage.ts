@@ -1,7 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize'
 import type { Unit } from './Unit'
 
-import type { StageName } from '#shared/types/equipment'
+import type { Stage as StageName } from '#shared/types/diagnosis'
 
 /** One refrigeration circuit of a unit with its nameplate data. */
 export class UnitStage extends Model<InferAttributes<UnitStage>, InferCreationAttributes<UnitStage>> {

@@ -1,18 +1,33 @@
 // Registers every model and declares every association, in one place.
 import type { Sequelize } from 'sequelize'
+import { CaseEvent } from './CaseEvent'
 import { Contact } from './Contact'
 import { Customer } from './Customer'
+import { KbCause } from './KbCause'
+import { KbRule } from './KbRule'
+import { KbTest } from './KbTest'
+import { KbVersion } from './KbVersion'
 import { Organisation } from './Organisation'
+import { OutboundEmail } from './OutboundEmail'
+import { RefrigerantTransaction } from './RefrigerantTransaction'
+import { ServiceCase } from './ServiceCase'
 import { Site } from './Site'
 import { Unit } from './Unit'
 import { UnitStage } from './UnitStage'
+import { Upload } from './Upload'
 import { User } from './User'
 
-export { Contact, Customer, Organisation, Site, Unit, UnitStage, User }
+export {
+  CaseEvent, Contact, Customer, KbCause, KbRule, KbTest, KbVersion, Organisation, OutboundEmail,
+  RefrigerantTransaction, ServiceCase, Site, Unit, UnitStage, Upload, User,
+}
 
 /** Initialises all models on `sequelize` and wires their associations. */
 export function initModels(sequelize: Sequelize): void {
-  for (const model of [Organisation, User, Customer, Site, Contact, Unit, UnitStage]) model.initModel(sequelize)
+  for (const model of [
+    Organisation, User, Customer, Site, Contact, Unit, UnitStage, KbVersion, KbCause, KbTest, KbRule,
+    ServiceCase, CaseEvent, RefrigerantTransaction, Upload, OutboundEmail,
+  ]) model.initModel(sequelize)
 
   Organisation.hasMany(User, { foreignKey: 'organisationId' })
   User.belongsTo(Organisation, { foreignKey: 'organisationId' })
@@ -28,4 +43,14 @@ export function initModels(sequelize: Sequelize): void {
   Unit.belongsTo(Site, { foreignKey: 'siteId', as: 'site' })
   Unit.hasMany(UnitStage, { foreignKey: 'unitId', as: 'stages' })
   UnitStage.belongsTo(Unit, { foreignKey: 'unitId', as: 'unit' })
+
+  Organisation.hasMany(KbVersion, { foreignKey: 'organisationId' })
+  for (const part of [KbCause, KbTest, KbRule]) KbVersion.hasMany(part as typeof KbCause, { foreignKey: 'versionId' })
+  Organisation.hasMany(ServiceCase, { foreignKey: 'organisationId' })
+  Unit.hasMany(ServiceCase, { foreignKey: 'unitId', as: 'cases' })
+  ServiceCase.belongsTo(Unit, { foreignKey: 'unitId', as: 'unit' })
+  ServiceCase.belongsTo(User, { foreignKey: 'technicianId', as: 'technician' })
+  ServiceCase.hasMany(CaseEvent, { foreignKey: 'caseId', as: 'events' })
+  ServiceCase.hasMany(RefrigerantTransaction, { foreignKey: 'caseId', as: 'transactions' })
+  Unit.hasMany(RefrigerantTransaction, { foreignKey: 'unitId', as: 'transactions' })
 }

@@ -1,6 +1,7 @@
 // The invented demo scenario: two service companies, their people, customers, sites and units.
 // Every name, address, model and serial here is made up for the demo.
-import type { EquipmentClass, StageName, UnitKind } from '#shared/types/equipment'
+import type { Stage as StageName, UnitKind } from '#shared/types/diagnosis'
+import type { EquipmentClass } from '#shared/types/equipment'
 import type { Role } from '#shared/utils/permissions'
 
 export const DEMO_PASSWORD = 'rimecase-demo'

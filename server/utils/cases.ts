@@ -1,0 +1,54 @@
+import type { H3Event } from 'h3'
+import type { Transaction } from 'sequelize'
+import type { User } from '#auth-utils'
+import { appendEvents, findCase, lockCase, saveCase, type LockedCase } from '#server/db/repositories/cases'
+import { findUnit } from '#server/db/repositories/equipment'
+import { assertWritable, rankingEvents, rankRequestFor, type NewEvent } from '#server/domain/cases/case-record'
+import type { CaseDto } from '#shared/types/cases'
+import type { RankResponse } from '#shared/types/diagnosis'
+import type { UnitDto } from '#shared/types/equipment-dto'
+
+/** The case of the user's organisation, or 404. */
+export async function caseOr404(user: User, id: number): Promise<CaseDto> {
+  const found = await findCase(user.organisationId, id)
+  if (!found) throw notFound('Case')
+  return found
+}
+
+export interface CaseChange {
+  changes: Parameters<typeof saveCase>[1]
+  events: NewEvent[]
+  rerank?: boolean
+}
+
+/**
+ * Applies one change to an open case under a row lock: refuses closed cases and stale versions
+ * (409), appends the change's events, re-ranks when asked, and returns the updated record.
+ */
+export async function changeCase(
+  event: H3Event,
+  user: User,
+  id: number,
+  expectedVersion: number | undefined,
+  plan: (current: LockedCase, unit: UnitDto, transaction: Transaction) => CaseChange | Promise<CaseChange>,
+): Promise<CaseDto> {
+  await useDb().transaction(async (transaction) => {
+    const current = await lockCase(user.organisationId, id, transaction)
+    if (!current) throw notFound('Case')
+    const unit = await findUnit(user.organisationId, current.unitId)
+    if (!unit) throw notFound('Unit')
+    await withDomainErrors(async () => {
+      assertWritable(current, expectedVersion)
+      const { changes, events, rerank } = await plan(current, unit, transaction)
+      let ranking: RankResponse | undefined
+      if (rerank) {
+        const next = { ...current, ...changes }
+        ranking = await rankForOrganisation(user.organisationId, rankRequestFor(unit, next), unit.equipmentClass)
+        events.push(...rankingEvents(current.ranking, ranking))
+      }
+      await appendEvents(id, user.id, events, transaction)
+      await saveCase(id, ranking ? { ...changes, ranking } : changes, transaction)
+    })
+  })
+  return caseOr404(user, id)
+}

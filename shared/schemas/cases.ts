@@ -1,0 +1,73 @@
+import { z } from 'zod'
+import { causeSchema, readingSchema, stageSchema, symptomSchema, testSlugSchema } from './diagnosis'
+import { CASE_STATUSES } from '#shared/types/cases'
+
+const version = z.number().int().nonnegative().optional()
+const text = (max: number) => z.string().trim().max(max, `Keep it under ${max} characters`)
+
+/** `POST /api/cases`: open a case on a unit. */
+export const NewCaseSchema = z
+  .object({
+    unitId: z.number({ error: 'Pick a unit' }).int().positive(),
+    complaint: text(2000).min(3, 'Describe the complaint in a few words'),
+    symptoms: z.array(symptomSchema).max(20).default([]),
+  })
+  .strict()
+
+/** `POST /api/cases/{id}/readings`. `version` (optional) guards against overwriting newer changes. */
+export const AddReadingsSchema = z
+  .object({ readings: z.array(readingSchema).min(1, 'Enter at least one reading').max(100), version })
+  .strict()
+
+/** `POST /api/cases/{id}/test-results`. */
+export const AddTestResultSchema = z
+  .object({ test: testSlugSchema, stage: stageSchema.optional(), outcome: z.string().trim().min(1).max(60), note: text(2000).optional(), version })
+  .strict()
+
+/** `PUT /api/cases/{id}/symptoms`: the full set of symptoms now ticked. */
+export const SetSymptomsSchema = z.object({ symptoms: z.array(symptomSchema).max(20), version }).strict()
+
+/** `POST /api/cases/{id}/notes` and `/addendum`. */
+export const NoteSchema = z.object({ text: text(4000).min(1, 'Write the note first'), version }).strict()
+
+export const RefrigerantTransactionSchema = z
+  .object({
+    stage: stageSchema,
+    refrigerant: z.string().trim().min(2).max(12),
+    grams: z.number({ error: 'Grams must be a number' }).positive('Grams must be more than 0').max(500_000, 'That is more than any unit holds'),
+    direction: z.enum(['added', 'recovered'], { error: 'direction must be "added" or "recovered"' }),
+    cylinder: text(80).default(''),
+  })
+  .strict()
+
+/** `POST /api/cases/{id}/close`. */
+export const CloseCaseSchema = z
+  .object({
+    confirmedCauses: z.array(z.object({ cause: causeSchema, stage: stageSchema.optional() }).strict()).min(1, 'Confirm at least one cause (or "other")'),
+    workDone: text(4000).min(3, 'Describe the work done'),
+    parts: z.array(text(200).min(1)).max(50).default([]),
+    refrigerantTransactions: z.array(RefrigerantTransactionSchema).max(20).default([]),
+    unitStateAtDeparture: text(500).default(''),
+    followUp: text(2000).default(''),
+    version,
+  })
+  .strict()
+
+const optionalId = z.coerce.number().int().positive().optional()
+/** `GET /api/cases` filters, sorting and paging. */
+export const CaseListQuerySchema = z
+  .object({
+    status: z.enum(CASE_STATUSES).optional(),
+    customerId: optionalId,
+    unitId: optionalId,
+    technicianId: optionalId,
+    cause: causeSchema.optional(),
+    from: z.coerce.date().optional(),
+    to: z.coerce.date().optional(),
+    q: z.string().trim().max(200).optional(),
+    sort: z.enum(['opened', 'unit', 'status']).default('opened'),
+    direction: z.enum(['asc', 'desc']).default('desc'),
+    page: z.coerce.number().int().min(1).default(1),
+    pageSize: z.coerce.number().int().min(1).max(100).default(20),
+  })
+  .strict()

@@ -1,0 +1,110 @@
+import type { Cause, RankResponse, Reading, Stage, Symptom, TestResult } from './diagnosis'
+import type { UnitDto } from './equipment-dto'
+
+export const CASE_STATUSES = ['open', 'closed'] as const
+export type CaseStatus = (typeof CASE_STATUSES)[number]
+
+/** A reading as the case stores it: the entered value and unit, when and by whom. */
+export interface CaseReading extends Reading {
+  at: string
+  by: number | null
+}
+export interface CaseTestResult extends TestResult {
+  stage?: Stage
+  at: string
+  by: number | null
+}
+
+export const CASE_EVENT_TYPES = [
+  'case-opened', 'symptoms-set', 'reading-entered', 'test-proposed', 'outcome-recorded', 'note', 'photo',
+  'ranking-snapshot', 'case-closed', 'addendum', 'report-queued', 'report-sent', 'report-failed',
+] as const
+export type CaseEventType = (typeof CASE_EVENT_TYPES)[number]
+
+export interface CaseEventDto {
+  id: number
+  at: string
+  type: CaseEventType
+  by: string | null
+  byUserId: number | null
+  [key: string]: unknown
+}
+
+export interface RefrigerantTransactionDto {
+  id?: number
+  stage: Stage
+  refrigerant: string
+  grams: number
+  direction: 'added' | 'recovered'
+  cylinder: string
+  at?: string
+}
+
+export interface CaseClosure {
+  confirmedCauses: { cause: Cause; stage?: Stage }[]
+  workDone: string
+  parts: string[]
+  refrigerantTransactions: RefrigerantTransactionDto[]
+  unitStateAtDeparture: string
+  followUp: string
+  closedBy: number | null
+}
+
+export interface UploadDto {
+  id: number
+  mime: string
+  bytes: number
+  originalName: string
+  purpose: string
+  url: string
+  thumbUrl: string | null
+  createdAt: string
+}
+
+export interface EmailDto {
+  id: number
+  toAddress: string
+  subject: string
+  status: 'pending' | 'sent' | 'failed'
+  attempts: number
+  lastError: string | null
+  sentAt: string | null
+}
+
+/** A case as `GET /api/cases/{id}` returns it (contract fields first). */
+export interface CaseDto {
+  id: number
+  unitId: number
+  status: CaseStatus
+  complaint: string
+  symptoms: Symptom[]
+  readings: CaseReading[]
+  testResults: CaseTestResult[]
+  ranking: RankResponse | null
+  events: CaseEventDto[]
+  version: number
+  technician: string | null
+  openedAt: string
+  closedAt: string | null
+  notes: string
+  closure: CaseClosure | null
+  unit: UnitDto
+  transactions: RefrigerantTransactionDto[]
+  uploads: UploadDto[]
+  emails: EmailDto[]
+}
+
+/** A row of the case list. */
+export interface CaseListItem {
+  id: number
+  status: CaseStatus
+  complaint: string
+  unitId: number
+  unitName: string
+  customer: string
+  technician: string | null
+  openedAt: string
+  closedAt: string | null
+  confirmedCauses: { cause: string; stage?: string }[]
+  topCause: { cause: string; stage?: string; probability: number } | null
+}
