@@ -9,6 +9,7 @@ export interface NavItem {
 // Only pages that exist are listed; each is shown to the roles that may use it.
 const NAV_ITEMS: NavItem[] = [
   { to: '/', label: 'Home' },
+  { to: '/cases', label: 'Cases', permission: 'cases:read' },
   { to: '/units', label: 'Units', permission: 'equipment:read' },
   { to: '/admin/users', label: 'Users', permission: 'users:manage' },
 ]

@@ -11,6 +11,7 @@ import { atmosphericPressureAtAltitude } from '#shared/utils/properties'
 const RETRY_DELAYS_S = [30, 120, 600, 3600, 21600]
 let transport: nodemailer.Transporter | undefined
 let delivering: Promise<void> | undefined
+let again = false
 
 function mailer() {
   const { smtp } = useRuntimeConfig()
@@ -47,11 +48,21 @@ async function sendOne(email: Awaited<ReturnType<typeof dueEmails>>[number]) {
   }
 }
 
-/** Sends every e-mail that is due; concurrent calls share one run. Never throws. */
+/**
+ * Sends every e-mail that is due. Calls during a run share it, and the run goes round once more so
+ * that e-mails queued meanwhile are not left for the retry timer. Never throws.
+ */
 export function deliverDueEmails(): Promise<void> {
-  delivering ??= (async () => {
+  if (delivering) {
+    again = true
+    return delivering
+  }
+  delivering = (async () => {
     try {
-      for (const email of await dueEmails()) await sendOne(email)
+      do {
+        again = false
+        for (const email of await dueEmails()) await sendOne(email)
+      } while (again)
     } catch (error) {
       console.error('[mail] delivery run failed:', error instanceof Error ? error.message : error)
     } finally {

@@ -134,6 +134,13 @@ export const testResultSchema = z
 export const rankRequestSchema = z
   .object({
     unit: unitConfigSchema,
+    site: z
+      .object({
+        altitudeM: z.number().min(-430, 'Altitude must be at least -430 m').max(5000, 'Altitude must be at most 5000 m').optional(),
+        atmosphericKpa: z.number().min(50, 'Atmospheric pressure must be 50–110 kPa').max(110, 'Atmospheric pressure must be 50–110 kPa').optional(),
+      })
+      .strict()
+      .optional(),
     symptoms: z.array(symptomSchema).optional(),
     readings: z.array(readingSchema).optional(),
     testResults: z.array(testResultSchema).optional(),

@@ -171,8 +171,15 @@ export interface TestResult {
   outcome: string
 }
 
+/** Where the unit stands: sets the atmospheric pressure used to turn gauge readings into absolute. */
+export interface SiteConfig {
+  altitudeM?: number
+  atmosphericKpa?: number
+}
+
 export interface RankRequest {
   unit: UnitConfig
+  site?: SiteConfig
   symptoms?: Symptom[]
   readings?: Reading[]
   testResults?: TestResult[]

@@ -72,6 +72,7 @@ export function rankRequestFor(unit: UnitDto, state: Pick<CaseState, 'symptoms' 
       }),
       design,
     },
+    site: { altitudeM: unit.siteAltitudeM },
     symptoms: state.symptoms,
     readings: latestReadings(state.readings),
     testResults: latestTestResults(state.testResults),

@@ -84,12 +84,12 @@ function readingKey(r: Pick<Reading, 'quantity' | 'stage'>): string {
   return r.stage ? `${r.stage}:${r.quantity}` : r.quantity
 }
 
-function normaliseValue(r: Reading, c: Collector): number | boolean | undefined {
+function normaliseValue(r: Reading, c: Collector, atmosphericKpa: number): number | boolean | undefined {
   const value = r.value
   if (typeof value === 'boolean') return value
   const dim = QUANTITY_DIMENSION[r.quantity]
   if (dim === 'pressure') {
-    const kpa = c.attempt(readingKey(r), () => props.toKpaAbs(value, r.unit as PressureReadingUnit))
+    const kpa = c.attempt(readingKey(r), () => props.toKpaAbs(value, r.unit as PressureReadingUnit, atmosphericKpa))
     if (kpa !== undefined && kpa <= 0) {
       c.warn(`${readingKey(r)} of ${value} ${r.unit} is at or below absolute zero pressure; reading ignored`)
       return undefined
@@ -111,15 +111,23 @@ function normaliseValue(r: Reading, c: Collector): number | boolean | undefined 
   return value
 }
 
+/** Local atmospheric pressure for gauge readings: given, from the site's altitude (ISO 2533), or 101.325 kPa. */
+export function atmosphericPressureOf(request: RankRequest): number {
+  if (request.site?.atmosphericKpa !== undefined) return request.site.atmosphericKpa
+  if (request.site?.altitudeM !== undefined) return props.atmosphericPressureAtAltitude(request.site.altitudeM)
+  return 101.325
+}
+
 function normaliseReadings(request: RankRequest, c: Collector): Numbers {
   const out: Numbers = new Map()
   const stages = new Set(request.unit.stages.map((s) => s.stage))
+  const atmosphericKpa = atmosphericPressureOf(request)
   for (const r of request.readings ?? []) {
     if (r.stage && !stages.has(r.stage)) {
       c.warn(`${readingKey(r)}: this unit has no ${r.stage} stage; reading ignored`)
       continue
     }
-    const value = normaliseValue(r, c)
+    const value = normaliseValue(r, c, atmosphericKpa)
     if (value === undefined) continue
     if (out.has(readingKey(r))) c.warn(`${readingKey(r)} given more than once; the last value is used`)
     out.set(readingKey(r), value)

@@ -22,6 +22,18 @@ describe('deriveFacts', () => {
     expect(facts.runtimeMin).toBe(30)
   })
 
+  it('turns gauge readings into absolute ones with the site altitude (ISO 2533 standard atmosphere)', () => {
+    const request: RankRequest = {
+      unit: { kind: 'single-stage', stages: [{ stage: 'single', refrigerant: 'R290' }] },
+      site: { altitudeM: 1500 },
+      readings: [{ quantity: 'suctionPressure', stage: 'single', value: 100, unit: 'kPag' }],
+    }
+    // ISO 2533: 84.56 kPa at 1500 m.
+    expect(deriveFacts(request).facts['single.suctionPressureKpa']).toBeCloseTo(184.56, 1)
+    expect(deriveFacts({ ...request, site: { atmosphericKpa: 95 } }).facts['single.suctionPressureKpa']).toBeCloseTo(195, 6)
+    expect(deriveFacts({ ...request, site: undefined }).facts['single.suctionPressureKpa']).toBeCloseTo(201.325, 6)
+  })
+
   it('derives saturated temperatures, superheat, subcooling and ratio from a healthy freezer', () => {
     const { facts } = deriveFacts(singleStageFreezer({ sstC: -30, sctC: 40, superheatK: 6, subcoolingK: 5, currentPct: 100, airOutC: 33, cabinetC: -20 }))
     expect(facts['single.saturatedSuctionC']).toBeCloseTo(-30, 0)

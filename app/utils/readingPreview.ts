@@ -1,0 +1,39 @@
+// What a reading means while it is typed: converts it and, for stage pressures and temperatures,
+// computes the saturation temperature, superheat or subcooling with the shared property module.
+import type { Quantity, Stage } from '#shared/types/diagnosis'
+import { isDesignation, saturationTemperature, superheatK, subcoolingK, toCelsius, toKpaAbs } from '#shared/utils/properties'
+
+export interface PreviewContext {
+  refrigerant?: string
+  atmosphericKpa: number
+  /** Latest suction/discharge pressure of the same stage, kPa absolute. */
+  suctionKpa?: number
+  dischargeKpa?: number
+}
+
+/** A short line such as "−97.8 °C saturated (dew)" or "superheat 8.2 K", or '' when nothing applies. */
+export function previewReading(quantity: Quantity, value: number, unit: string, ctx: PreviewContext): string {
+  if (!Number.isFinite(value)) return ''
+  try {
+    if (quantity.endsWith('Pressure')) {
+      const kpa = toKpaAbs(value, unit, ctx.atmosphericKpa)
+      if (!ctx.refrigerant || !isDesignation(ctx.refrigerant)) return `${formatNumber(kpa, 0)} kPa abs`
+      const sat = saturationTemperature(ctx.refrigerant, kpa)
+      const glide = Math.abs(sat.dewC - sat.bubbleC) > 0.05
+      const temp = quantity === 'dischargePressure' && glide ? sat.bubbleC : sat.dewC
+      return `${formatNumber(kpa, 0)} kPa abs → ${formatNumber(temp)} °C sat.${glide ? (quantity === 'dischargePressure' ? ' (bubble)' : ' (dew)') : ''}`
+    }
+    if (unit === 'C' || unit === 'F' || unit === 'K') {
+      const c = toCelsius(value, unit)
+      const d = ctx.refrigerant
+      if (d && isDesignation(d) && quantity === 'suctionTemperature' && ctx.suctionKpa) return `${formatNumber(c)} °C → superheat ${formatNumber(superheatK(d, ctx.suctionKpa, c))} K`
+      if (d && isDesignation(d) && quantity === 'liquidLineTemperature' && ctx.dischargeKpa) return `${formatNumber(c)} °C → subcooling ${formatNumber(subcoolingK(d, ctx.dischargeKpa, c))} K`
+      return unit === 'C' ? '' : `${formatNumber(c)} °C`
+    }
+  } catch (error) {
+    return error instanceof Error ? error.message : 'Outside the refrigerant range'
+  }
+  return ''
+}
+
+export type { Stage }

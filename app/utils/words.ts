@@ -1,0 +1,58 @@
+// Plain labels for the vocabulary words the API uses. The words themselves stay as they are on
+// the wire; these are only what a technician reads.
+import type { Quantity, Stage, Symptom } from '#shared/types/diagnosis'
+
+export const STAGE_LABELS: Record<Stage, string> = { high: 'High stage', low: 'Low stage', single: 'Single stage' }
+
+export const QUANTITY_LABELS: Record<Quantity, string> = {
+  suctionPressure: 'Suction pressure',
+  dischargePressure: 'Discharge pressure',
+  suctionTemperature: 'Suction line temperature',
+  dischargeTemperature: 'Discharge line temperature',
+  liquidLineTemperature: 'Liquid line temperature',
+  evaporatorTemperature: 'Evaporator temperature',
+  compressorCurrent: 'Compressor current',
+  compressorRunning: 'Compressor running',
+  standingPressure: 'Standing pressure (off, equalised)',
+  cabinetTemperature: 'Cabinet temperature',
+  setpointTemperature: 'Setpoint',
+  cascadeHxTemperature: 'Cascade heat exchanger',
+  ambientTemperature: 'Room (ambient) temperature',
+  condenserAirInTemperature: 'Condenser air in',
+  condenserAirOutTemperature: 'Condenser air out',
+  runtime: 'Runtime since start',
+}
+
+export const SYMPTOM_LABELS: Record<Symptom, string> = {
+  'not-cooling': 'Not cooling',
+  'slow-pulldown': 'Slow pull-down',
+  'warming-over-days': 'Warming over days',
+  'intermittent-cooling': 'Cools on and off',
+  'compressor-short-cycling': 'Compressor short-cycling',
+  'compressor-not-starting': 'Compressor does not start',
+  'compressor-tripping': 'Compressor trips',
+  'frost-on-capillary': 'Frost on a capillary',
+  'oil-at-fitting': 'Oil at a fitting',
+  'line-tap-valve-present': 'Line-tap valve fitted',
+  'recently-serviced': 'Recently serviced',
+  'refrigerant-label-mismatch': 'Refrigerant label does not match',
+  'noisy-compressor': 'Noisy compressor',
+}
+
+export const UNIT_SYMBOLS: Record<string, string> = { C: '°C', F: '°F', K: 'K', A: 'A', min: 'min', bool: '' }
+
+/** "−12.5" with a real minus sign and fixed decimals. */
+export function formatNumber(n: number, digits = 1): string {
+  const v = Math.abs(n) < 10 ** -(digits + 1) ? 0 : n
+  return v.toFixed(digits).replace('-', '−')
+}
+
+/** A unit word as shown beside a number ("psig", "°C"). */
+export function unitSymbol(unit: string): string {
+  return UNIT_SYMBOLS[unit] ?? unit
+}
+
+/** Human label of a cause slug when no title is at hand. */
+export function causeLabel(slug: string): string {
+  return slug.replaceAll('-', ' ').replace(/^./, (c) => c.toUpperCase())
+}
