@@ -33,6 +33,8 @@ export default defineNuxtConfig({
   },
   nitro: {
     experimental: { tasks: false },
+    // Serve pre-compressed JS/CSS: technicians load the case page over weak phone connections.
+    compressPublicAssets: { gzip: true, brotli: true },
   },
   typescript: { strict: true },
 })

@@ -3,12 +3,10 @@
 // PostgreSQL cluster on a free loopback port, migrates and seeds it, then runs every test:
 // typecheck, unit (vitest), build, API (vitest against the built server), browser (Playwright).
 // Everything it started is stopped at the end, also on failure.
-import { randomBytes } from 'node:crypto'
-import { chmodSync, mkdtempSync, rmSync } from 'node:fs'
-import { join } from 'node:path'
 import { spawn } from 'node:child_process'
-import { ROOT, ensureChromium, ensureNodeModules, ensurePostgresBinaries, freePort, startChild, step, waitForHttp } from './lib/system.mjs'
-import { buildIfStale, migrateAndSeed } from './lib/project.mjs'
+import { join } from 'node:path'
+import { ROOT, ensureChromium, ensureNodeModules, ensurePostgresBinaries, step } from './lib/system.mjs'
+import { startDatabase, startServer } from './lib/harness.mjs'
 
 const bin = (name) => join(ROOT, 'node_modules', '.bin', name)
 const results = []
@@ -41,36 +39,21 @@ for (const signal of ['SIGINT', 'SIGTERM']) process.on(signal, async () => { awa
 async function main() {
   const t0 = Date.now()
   ensureNodeModules()
-  const pgBin = ensurePostgresBinaries()
+  ensurePostgresBinaries()
   const chromium = ensureChromium()
 
-  const tmp = mkdtempSync('/tmp/rimecase-test-')
-  chmodSync(tmp, 0o755)
-  cleanups.push(() => rmSync(tmp, { recursive: true, force: true }))
-  const { startCluster } = await import('./lib/postgres.mjs')
-  const cluster = await startCluster({ bin: pgBin, dataDir: join(tmp, 'pg'), port: await freePort(), database: 'rimecase_test' })
-  cleanups.push(() => cluster.stop())
-  migrateAndSeed(cluster.url)
-
-  const sessionPassword = randomBytes(32).toString('hex')
-  const common = { DATABASE_URL: cluster.url, CHROMIUM_PATH: chromium }
+  const db = await startDatabase('rimecase-test-')
+  cleanups.push(() => db.stop())
+  const common = { DATABASE_URL: db.databaseUrl, CHROMIUM_PATH: chromium }
   await runStep('typecheck', bin('nuxt'), ['typecheck'])
   await runStep('unit tests', bin('vitest'), ['run', '--project', 'unit'], common)
   const built = await runStep('build', process.execPath, ['-e', 'import("./scripts/lib/project.mjs").then(m => m.buildIfStale())'])
   if (!built) return
 
-  const { startSmtpFake } = await import('./lib/smtp.mjs')
-  const outbox = join(tmp, 'outbox')
-  const smtp = await startSmtpFake({ dir: outbox })
-  cleanups.push(() => smtp.close())
-  const appPort = await freePort()
-  const baseUrl = `http://127.0.0.1:${appPort}`
-  const app = startChild('app', process.execPath, ['.output/server/index.mjs'], {
-    HOST: '127.0.0.1', PORT: String(appPort), NUXT_DATABASE_URL: cluster.url, NUXT_SESSION_PASSWORD: sessionPassword,
-    NUXT_SMTP_PORT: String(smtp.port), NUXT_SMTP_OUTBOX_DIR: outbox, NUXT_UPLOAD_DIR: join(tmp, 'uploads'), NUXT_TEST_ROUTES: 'true',
-  })
-  cleanups.push(() => new Promise((resolve) => { if (app.exitCode !== null) return resolve(); app.once('exit', resolve); app.kill('SIGTERM') }))
-  await waitForHttp(`${baseUrl}/api/health`)
+  const server = await startServer(db)
+  cleanups.push(() => server.stop())
+  const baseUrl = server.baseUrl
+  const outbox = server.outbox
 
   const served = { ...common, RIMECASE_TEST_BASE_URL: baseUrl, RIMECASE_OUTBOX_DIR: outbox }
   await runStep('API tests', bin('vitest'), ['run', '--project', 'api'], served)

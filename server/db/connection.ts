@@ -11,7 +11,7 @@ export function createSequelize(url: string): Sequelize {
     dialect: 'postgres',
     dialectModule: pg,
     logging: false,
-    pool: { max: 10, min: 0, idle: 10_000 },
+    pool: { max: 20, min: 0, idle: 10_000, acquire: 10_000 },
   })
   initModels(sequelize)
   return sequelize

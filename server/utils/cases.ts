@@ -1,7 +1,7 @@
 import type { H3Event } from 'h3'
 import type { Transaction } from 'sequelize'
 import type { User } from '#auth-utils'
-import { appendEvents, findCase, lockCase, saveCase, type LockedCase } from '#server/db/repositories/cases'
+import { appendEvents, caseUnitId, findCase, lockCase, saveCase, type LockedCase } from '#server/db/repositories/cases'
 import { findUnit } from '#server/db/repositories/equipment'
 import { assertWritable, rankingEvents, rankRequestFor, type NewEvent } from '#server/domain/cases/case-record'
 import type { CaseDto } from '#shared/types/cases'
@@ -32,18 +32,23 @@ export async function changeCase(
   expectedVersion: number | undefined,
   plan: (current: LockedCase, unit: UnitDto, transaction: Transaction) => CaseChange | Promise<CaseChange>,
 ): Promise<CaseDto> {
+  // Everything that needs the database besides the locked row is loaded first, so a request never
+  // holds one pooled connection while waiting for another.
+  const unitId = await caseUnitId(user.organisationId, id)
+  if (unitId === null) throw notFound('Case')
+  const unit = await findUnit(user.organisationId, unitId)
+  if (!unit) throw notFound('Unit')
+  const rank = await prepareRanker(user.organisationId, { equipmentClass: unit.equipmentClass })
   await useDb().transaction(async (transaction) => {
     const current = await lockCase(user.organisationId, id, transaction)
     if (!current) throw notFound('Case')
-    const unit = await findUnit(user.organisationId, current.unitId)
-    if (!unit) throw notFound('Unit')
     await withDomainErrors(async () => {
       assertWritable(current, expectedVersion)
       const { changes, events, rerank } = await plan(current, unit, transaction)
       let ranking: RankResponse | undefined
       if (rerank) {
         const next = { ...current, ...changes }
-        ranking = await rankForOrganisation(user.organisationId, rankRequestFor(unit, next), unit.equipmentClass)
+        ranking = await rank(rankRequestFor(unit, next))
         events.push(...rankingEvents(current.ranking, ranking))
       }
       await appendEvents(id, user.id, events, transaction)

@@ -48,20 +48,52 @@ async function learnedCounts(organisationId: number, group: { equipmentClass: st
   return counts
 }
 
-/**
- * Ranks causes with the organisation's published base and the priors its closed cases taught:
- * those of the unit's equipment class when known (cases), else of the same unit kind.
- */
-export async function rankForOrganisation(organisationId: number, request: RankRequest, equipmentClass?: string): Promise<RankResponse> {
-  const kb = await publishedKnowledgeBase(organisationId)
-  const group = equipmentClass ? { equipmentClass } : { kind: request.unit.kind }
-  const counts = await learnedCounts(organisationId, group)
+// Ranking is a pure function of (published version, learned counts, request). Identical requests
+// (a logger re-posting the same readings, a screen refreshing) are answered from a small LRU memo;
+// a different reading, outcome, version or count is a different key and is ranked afresh.
+const MEMO_SIZE = 500
+const memo = new Map<string, RankResponse>()
+
+function remember(key: string, value: RankResponse) {
+  memo.set(key, value)
+  if (memo.size > MEMO_SIZE) memo.delete(memo.keys().next().value!)
+}
+
+/** Ranks with a prepared base and counts; maps unknown test outcomes to a 400. */
+async function rankWith(kb: KnowledgeBase, counts: LearnedCount[], request: RankRequest, equipmentClass: string): Promise<RankResponse> {
+  const key = `${kb.version.id}|${equipmentClass}|${JSON.stringify(counts)}|${JSON.stringify(request)}`
+  const hit = memo.get(key)
+  if (hit) {
+    memo.delete(key)
+    memo.set(key, hit)
+    return hit
+  }
   try {
-    return await rankDiagnosis(kb, request, { learnedCounts: counts, equipmentClass: equipmentClass ?? request.unit.kind })
+    const ranked = await rankDiagnosis(kb, request, { learnedCounts: counts, equipmentClass })
+    remember(key, ranked)
+    return ranked
   } catch (error) {
     if (error instanceof RankInputError) {
       throw createError({ status: 400, statusText: 'Bad Request', message: error.message, data: { fieldErrors: { testResults: error.issues } } })
     }
     throw error
   }
+}
+
+/**
+ * Loads what ranking needs from the database (published base, learned counts of the unit's
+ * equipment class or, without one, of the unit kind) and returns a ranker that needs no database:
+ * code holding a row lock can rank without asking the pool for a second connection.
+ */
+export async function prepareRanker(organisationId: number, group: { equipmentClass: string } | { kind: string }) {
+  const kb = await publishedKnowledgeBase(organisationId)
+  const counts = await learnedCounts(organisationId, group)
+  const label = 'equipmentClass' in group ? group.equipmentClass : group.kind
+  return (request: RankRequest) => rankWith(kb, counts, request, label)
+}
+
+/** Ranks causes with the organisation's published base and the priors its closed cases taught. */
+export async function rankForOrganisation(organisationId: number, request: RankRequest, equipmentClass?: string): Promise<RankResponse> {
+  const rank = await prepareRanker(organisationId, equipmentClass ? { equipmentClass } : { kind: request.unit.kind })
+  return rank(request)
 }

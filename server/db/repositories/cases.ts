@@ -35,6 +35,12 @@ export async function appendEvents(caseId: number, byUserId: number | null, even
   )
 }
 
+/** The unit of a case of the organisation, or null. */
+export async function caseUnitId(organisationId: number, id: number): Promise<number | null> {
+  const c = await ServiceCase.findOne({ where: { id, organisationId }, attributes: ['unitId'] })
+  return c?.unitId ?? null
+}
+
 /** Loads a case of the organisation and locks its row until the transaction ends (null if absent). */
 export async function lockCase(organisationId: number, id: number, transaction: Transaction): Promise<LockedCase | null> {
   const c = await ServiceCase.findOne({ where: { id, organisationId }, transaction, lock: transaction.LOCK.UPDATE })

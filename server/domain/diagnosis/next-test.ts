@@ -35,9 +35,22 @@ interface Gain {
   likelihoods: number[][]
 }
 
+// likelihoods[o][h] depend only on the knowledge base, the test, its stage and the hypothesis list
+// (fixed per unit kind), so they are built once per published version and reused by every request.
+const matrices = new WeakMap<object, Map<string, number[][]>>()
+
+function likelihoodMatrix(test: TestDef, stage: Stage, hyps: Hypothesis[], kind: UnitKind): number[][] {
+  let perTest = matrices.get(test)
+  if (!perTest) matrices.set(test, (perTest = new Map()))
+  const key = `${kind}|${stage}|${hyps.length}|${hyps[0]?.cause}${hyps[0]?.stage}|${hyps.at(-1)?.cause}${hyps.at(-1)?.stage}`
+  let m = perTest.get(key)
+  if (!m) perTest.set(key, (m = test.outcomes.map((o) => hyps.map((h) => testLikelihood(o, stage, h)))))
+  return m
+}
+
 /** likelihoods[o][h] for test t on stage s. */
-function expectedGain(test: TestDef, stage: Stage, hyps: Hypothesis[], p: number[], hNow: number): Gain {
-  const likelihoods = test.outcomes.map((o) => hyps.map((h) => testLikelihood(o, stage, h)))
+function expectedGain(test: TestDef, stage: Stage, hyps: Hypothesis[], p: number[], hNow: number, kind: UnitKind): Gain {
+  const likelihoods = likelihoodMatrix(test, stage, hyps, kind)
   const joint = likelihoods.map((row) => row.map((l, i) => l * (p[i] ?? 0)))
   const outcomeProbs = normalise(joint.map((row) => row.reduce((a, b) => a + b, 0)))
   const after = joint.reduce((acc, row, o) => acc + (outcomeProbs[o] ?? 0) * entropyBits(normalise(row)), 0)
@@ -79,7 +92,7 @@ export function proposeTests({ kb, kind, hypotheses, posterior, done, readingsPr
     for (const stage of test.stages.filter((s) => STAGES_OF_KIND[kind].includes(s))) {
       const answeredBy = ANSWERED_BY_READING[test.slug]
       if (doneKeys.has(`${test.slug}@${stage}`) || (answeredBy && readingsPresent.has(`${stage}:${answeredBy}`))) continue
-      const g = expectedGain(test, stage, hypotheses, posterior, hNow)
+      const g = expectedGain(test, stage, hypotheses, posterior, hNow, kind)
       if (g.gain < MIN_GAIN_BITS) continue
       const penalty = (test.opensSystem ? INVASIVE_PENALTY : 1) * (test.hotWork ? INVASIVE_PENALTY : 1)
       out.push({
