@@ -3,7 +3,7 @@
  * module (no round trip). Pure functions, so they are unit-tested without a page.
  */
 import { StandingPressureBodySchema } from '#shared/schemas/properties'
-import type { StandingFromChargeDto, StandingFromPressureDto } from '#shared/types/properties-dto'
+import type { StandingFromChargeDto, StandingFromPressureDto, StandingShiftDto } from '#shared/types/properties-dto'
 import { saturationAtPressure, saturationAtTemperature, standingCheck } from '#shared/utils/calculator'
 import { OutOfRangeError, UnitError, atmosphericPressureAtAltitude, toCelsius, toKpaAbs, type PressureUnit, type RefrigerantInfo, type TemperatureUnit } from '#shared/utils/properties'
 import { STANDARD_ATMOSPHERE_KPA } from '#shared/utils/properties/units'
@@ -69,6 +69,8 @@ export interface StandingForm {
 export interface StandingView {
   errors: Partial<Record<StandingField, string>>
   expected?: StandingFromChargeDto
+  /** The stage's recorded reference reading carried to this ambient along its isochore. */
+  fromReference?: StandingShiftDto
   measured?: StandingFromPressureDto & { percentOfNameplate?: number }
   /** A state the property model refuses (e.g. ambient outside its range), in the model's words. */
   problem?: string
@@ -92,8 +94,11 @@ function numbers(form: StandingForm, atmosphereKpa: number, errors: StandingView
   return { ambientC: read('ambient', form.ambient), chargeG: read('charge', form.charge), volumeL: read('volume', form.volume), pressureKpa }
 }
 
-/** The standing-pressure check: expected pressure from the nameplate charge, and the charge a measured pressure implies. */
-export function standingView(info: RefrigerantInfo, form: StandingForm, atmosphereKpa: number): StandingView {
+/**
+ * The standing-pressure check: expected pressure from the nameplate charge (and from a recorded reference
+ * reading, when the stage has one), and the charge a measured pressure implies.
+ */
+export function standingView(info: RefrigerantInfo, form: StandingForm, atmosphereKpa: number, reference?: { pressureKpa: number; ambientC: number }): StandingView {
   const errors: StandingView['errors'] = {}
   const n = numbers(form, atmosphereKpa, errors)
   const view: StandingView = { errors }
@@ -113,7 +118,12 @@ export function standingView(info: RefrigerantInfo, form: StandingForm, atmosphe
       return undefined
     }
   }
-  if (n.ambientC === undefined || n.volumeL === undefined) return view
+  if (n.ambientC === undefined) return view
+  if (reference) {
+    const shifted = run({ designation: info.designation, ambientC: n.ambientC, referencePressureKpa: reference.pressureKpa, referenceAmbientC: reference.ambientC })
+    if (shifted?.mode === 'shift') view.fromReference = shifted
+  }
+  if (n.volumeL === undefined) return view
   const base = { designation: info.designation, ambientC: n.ambientC, volumeL: n.volumeL }
   if (n.chargeG !== undefined) {
     const expected = run({ ...base, chargeG: n.chargeG })

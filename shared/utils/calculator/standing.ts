@@ -2,9 +2,11 @@
 import type { StandingRequest } from '#shared/schemas/properties'
 import type { StandingDto } from '#shared/types/properties-dto'
 import {
-  chargeFromStandingPressure, shiftStandingPressure, standingPressureFromCharge,
+  OutOfRangeError, chargeFromStandingPressure, shiftStandingPressure, standingPressureFromCharge,
   type RefrigerantInfo, type StandingResult,
 } from '#shared/utils/properties'
+import { fmtC, fmtKpa } from '#shared/utils/properties/errors'
+import { fluidModel } from '#shared/utils/properties/model'
 
 function common(info: RefrigerantInfo, ambientC: number, r: StandingResult) {
   return {
@@ -19,8 +21,25 @@ function common(info: RefrigerantInfo, ambientC: number, r: StandingResult) {
   }
 }
 
+/**
+ * A typing slip (1000 g in 1 L of ethylene) sends the equation of state far past the pressures it was
+ * fitted to, where it still returns a number (GPa). Refuse such fills, naming the valid range.
+ */
+function plausible<T extends StandingDto>(info: RefrigerantInfo, dto: T): T {
+  const maxKpa = fluidModel(info.designation).pmax / 1000
+  if (!Number.isFinite(dto.densityKgM3) || !Number.isFinite(dto.pressureKpa) || dto.pressureKpa > maxKpa) {
+    const range = { minC: info.validRange.minC, maxC: info.validRange.maxC, minKpa: 0, maxKpa }
+    throw new OutOfRangeError(`${info.designation}: this fill would stand above ${fmtKpa(maxKpa)} at ${fmtC(dto.ambientC)}, beyond the range of its equation of state (0 to ${fmtKpa(maxKpa)}). Check the charge and the volume.`, range)
+  }
+  return dto
+}
+
 /** Runs one standing-pressure request; property errors (OutOfRangeError) pass through to the caller. */
 export function standingCheck(info: RefrigerantInfo, req: StandingRequest): StandingDto {
+  return plausible(info, computeStanding(info, req))
+}
+
+function computeStanding(info: RefrigerantInfo, req: StandingRequest): StandingDto {
   const designation = info.designation
   if (req.mode === 'charge') {
     const r = standingPressureFromCharge({ designation, ambientC: req.ambientC, volumeL: req.volumeL, chargeG: req.chargeG })

@@ -99,3 +99,15 @@ describe('localAtmosphere', () => {
     expect(localAtmosphere({ altitudeM: 20000, name: 'Balloon' })).toMatchObject({ kpa: 101.325, source: expect.stringMatching(/outside/) })
   })
 })
+
+describe('standing-pressure check from a recorded reference reading', () => {
+  it('carries the reference to the ambient along the isochore, even without a volume', () => {
+    const form: StandingForm = { ambient: '30', charge: '', volume: '', measured: '', measuredUnit: 'kPag' }
+    const v = standingView(info('R170'), form, 101.325, { pressureKpa: 1992.3, ambientC: 20 })
+    // A fixed gas fill rises with temperature (physics); at the same ambient it must return the reference itself.
+    expect(v.fromReference?.pressureKpa).toBeGreaterThan(1992.3)
+    const same = standingView(info('R170'), { ...form, ambient: '20' }, 101.325, { pressureKpa: 1992.3, ambientC: 20 })
+    expect(same.fromReference?.pressureKpa).toBeCloseTo(1992.3, 1)
+    expect(same.expected).toBeUndefined()
+  })
+})

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { resolveRefrigerant, saturationLookup, standingCheck } from '#shared/utils/calculator'
-import { UnknownRefrigerantError } from '#shared/utils/properties'
+import { OutOfRangeError, UnknownRefrigerantError } from '#shared/utils/properties'
 
 describe('resolveRefrigerant', () => {
   it('accepts loose spellings and refuses unknown designations by name', () => {
@@ -44,5 +44,14 @@ describe('standingCheck', () => {
     const req = { mode: 'shift', designation: 'R170', ambientC: 20, referencePressureKpa: 1992.3, referenceAmbientC: 20 } as const
     expect(standingCheck(info, req)).not.toHaveProperty('chargeG')
     expect(standingCheck(info, { ...req, volumeL: 10 })).toMatchObject({ chargeG: expect.closeTo(300, 0) })
+  })
+})
+
+describe('standingCheck refuses fills beyond the equation of state', () => {
+  it('names the range instead of printing an absurd pressure', () => {
+    const info = resolveRefrigerant('R1150')
+    // 1000 kg/m³ of ethylene at 20 °C is far denser than its liquid: a typing slip (physics, no source needed)
+    expect(() => standingCheck(info, { mode: 'charge', designation: 'R1150', ambientC: 20, volumeL: 1, chargeG: 1000 })).toThrow(/beyond the range of its equation of state \(0 to/)
+    expect(() => standingCheck(resolveRefrigerant('R170'), { mode: 'charge', designation: 'R170', ambientC: 20, volumeL: 1e-300, chargeG: 1e7 })).toThrow(OutOfRangeError)
   })
 })
