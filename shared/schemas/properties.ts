@@ -107,3 +107,18 @@ export const StandingPressureBodySchema = z
     }
     return { mode: 'shift', designation, ambientC, referencePressureKpa: b.referencePressureKpa, referenceAmbientC: b.referenceAmbientC, ...(volumeL !== undefined ? { volumeL } : {}) }
   })
+
+/** `GET /api/units-conversion?value=15&from=psig&to=kPa` (gauge units use `atmosphericKpa` or `altitudeM`, else 101.325 kPa). */
+export const UnitsConversionQuerySchema = z
+  .object({
+    value: queryNumber('value'),
+    from: z.enum(UNITS, { error: `from must be one of: ${UNITS.join(', ')}` }),
+    to: z.enum(UNITS, { error: `to must be one of: ${UNITS.join(', ')}` }),
+    atmosphericKpa: queryNumber('atmosphericKpa').pipe(z.number().min(1, 'atmosphericKpa must be at least 1 kPa').max(120, 'atmosphericKpa must be at most 120 kPa')).optional(),
+    altitudeM: queryNumber('altitudeM').pipe(z.number().min(-500, 'altitudeM must be at least −500 m').max(11_000, 'altitudeM must be at most 11 000 m')).optional(),
+  })
+  .superRefine((q, ctx) => {
+    if (isPressureUnit(q.from) !== isPressureUnit(q.to)) ctx.addIssue({ code: 'custom', message: `Cannot convert ${q.from} to ${q.to}: one is a pressure, the other a temperature`, path: ['to'] })
+    if (q.atmosphericKpa !== undefined && q.altitudeM !== undefined) ctx.addIssue({ code: 'custom', message: 'Give atmosphericKpa or altitudeM, not both', path: ['altitudeM'] })
+  })
+export type UnitsConversionQuery = z.infer<typeof UnitsConversionQuerySchema>

@@ -3,4 +3,5 @@
  * Used by server/api/refrigerants/**, server/api/calculations/standing-pressure.post.ts and app/pages/calculator.vue.
  */
 export { resolveRefrigerant, saturationAtPressure, saturationAtTemperature, saturationLookup } from './saturation'
+export { convertReading } from './convert'
 export { standingCheck } from './standing'

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { SaturationQuerySchema, StandingPressureBodySchema } from '#shared/schemas/properties'
+import { SaturationQuerySchema, StandingPressureBodySchema, UnitsConversionQuerySchema } from '#shared/schemas/properties'
 
 const fields = (r: { success: boolean; error?: { issues: { path: PropertyKey[] }[] } }) => (r.error?.issues ?? []).map((i) => i.path.join('.'))
 
@@ -35,5 +35,13 @@ describe('StandingPressureBodySchema', () => {
     expect(fields(StandingPressureBodySchema.safeParse({ designation: 'R170', ambientC: 20, chargeG: 1 }))).toEqual(['volumeL'])
     expect(fields(StandingPressureBodySchema.safeParse({ ...base, chargeG: -1 }))).toEqual(['chargeG'])
     expect(fields(StandingPressureBodySchema.safeParse({ designation: 'R170', ambientC: 20, referenceAmbientC: 20 }))).toEqual(['referencePressureKpa'])
+  })
+})
+
+describe('UnitsConversionQuerySchema', () => {
+  it('accepts one reading with two units of the same kind', () => {
+    expect(UnitsConversionQuerySchema.parse({ value: '15', from: 'psig', to: 'kPa' })).toEqual({ value: 15, from: 'psig', to: 'kPa' })
+    expect(fields(UnitsConversionQuerySchema.safeParse({ value: '15', from: 'psig', to: 'C' }))).toEqual(['to'])
+    expect(fields(UnitsConversionQuerySchema.safeParse({ value: '15', from: 'psig', to: 'kPa', atmosphericKpa: '100', altitudeM: '10' }))).toEqual(['altitudeM'])
   })
 })
