@@ -47,6 +47,7 @@ export const PRESSURE_LABELS: Record<PressureUnit, UnitLabel & { gauge: boolean 
   MPa: { short: 'MPa abs', long: 'MPa absolute', decimals: 4, gauge: false },
 }
 
+/** Temperature units as shown beside figures and in pickers. */
 export const TEMPERATURE_LABELS: Record<TemperatureUnit, UnitLabel> = {
   C: { short: '°C', long: '°C', decimals: 1 },
   F: { short: '°F', long: '°F', decimals: 1 },
