@@ -4,6 +4,8 @@ import { defineConfig } from 'vitest/config'
 const alias = {
   '#shared': fileURLToPath(new URL('./shared', import.meta.url)),
   '#server': fileURLToPath(new URL('./server', import.meta.url)),
+  // Pure helpers under app/utils are unit-tested in plain Node too.
+  '~': fileURLToPath(new URL('./app', import.meta.url)),
 }
 
 // Two projects: `unit` runs pure modules in plain Node; `api` drives the built server over HTTP

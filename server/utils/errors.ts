@@ -1,16 +1,34 @@
 import { ConflictError, ForbiddenError, InvalidStateError, NotFoundError } from '#server/domain/errors'
+import { OutOfRangeError, UnitError, UnknownRefrigerantError } from '#shared/utils/properties'
 
 const STATUS: [new (...args: never[]) => Error, number, string][] = [
   [NotFoundError, 404, 'Not Found'],
   [ForbiddenError, 403, 'Forbidden'],
   [ConflictError, 409, 'Conflict'],
   [InvalidStateError, 422, 'Unprocessable Entity'],
+  // The property module (shared with the browser) has its own error classes; they map here too.
+  [UnknownRefrigerantError, 404, 'Not Found'],
+  [OutOfRangeError, 422, 'Unprocessable Entity'],
+  [UnitError, 400, 'Bad Request'],
 ]
+
+/** Extra data a client can act on: the valid range of an out-of-range input, the allowed units. */
+function dataOf(error: Error): Record<string, unknown> | undefined {
+  if (error instanceof OutOfRangeError && error.range) {
+    // Infinity is not JSON; an open end of a range is simply left out.
+    return { range: Object.fromEntries(Object.entries(error.range).filter(([, v]) => Number.isFinite(v))) }
+  }
+  if (error instanceof UnitError) return { allowed: error.allowed, fieldErrors: { unit: [error.message] } }
+  return undefined
+}
 
 /** Maps a domain error to its HTTP error; anything else is rethrown unchanged. */
 export function toHttpError(error: unknown): never {
   for (const [type, status, statusText] of STATUS) {
-    if (error instanceof type) throw createError({ status, statusText, message: error.message })
+    if (error instanceof type) {
+      const data = dataOf(error)
+      throw createError({ status, statusText, message: error.message, ...(data ? { data } : {}) })
+    }
   }
   throw error
 }
