@@ -11,6 +11,7 @@ const NAV_ITEMS: NavItem[] = [
   { to: '/', label: 'Home' },
   { to: '/units', label: 'Units', permission: 'equipment:read' },
   { to: '/admin/users', label: 'Users', permission: 'users:manage' },
+  { to: '/admin/outbox', label: 'Outbox', permission: 'outbox:read' },
 ]
 
 /** Navigation entries the signed-in user's role may use. */

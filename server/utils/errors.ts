@@ -1,10 +1,13 @@
-import { ConflictError, ForbiddenError, InvalidStateError, NotFoundError } from '#server/domain/errors'
+import { BadInputError, ConflictError, ForbiddenError, InvalidStateError, NotFoundError, TooLargeError, UnsupportedTypeError } from '#server/domain/errors'
 
 const STATUS: [new (...args: never[]) => Error, number, string][] = [
   [NotFoundError, 404, 'Not Found'],
   [ForbiddenError, 403, 'Forbidden'],
   [ConflictError, 409, 'Conflict'],
   [InvalidStateError, 422, 'Unprocessable Entity'],
+  [BadInputError, 400, 'Bad Request'],
+  [TooLargeError, 413, 'Content Too Large'],
+  [UnsupportedTypeError, 415, 'Unsupported Media Type'],
 ]
 
 /** Maps a domain error to its HTTP error; anything else is rethrown unchanged. */

@@ -35,7 +35,7 @@ async function sendOne(email: Awaited<ReturnType<typeof dueEmails>>[number]) {
       to: email.toAddress,
       subject: email.subject,
       text: [`${report.title} (${report.reference})`, `Technician: ${report.technician}`, ...lines, '', 'The full report is attached as a PDF.'].join('\n'),
-      attachments: [{ filename: `rimecase-case-${c.id}-report.pdf`, content: pdf, contentType: 'application/pdf' }],
+      attachments: [{ filename: reportPdfName(c.id), content: pdf, contentType: 'application/pdf' }],
     })
     await recordAttempt(email.id, { ok: true, messageId: info.messageId })
     await useDb().transaction((t) => appendEvents(c.id, null, [{ type: 'report-sent', payload: { to: email.toAddress, emailId: email.id } }], t))
@@ -72,4 +72,13 @@ export async function queueServiceReport(user: User, c: CaseDto, recipients?: st
   await useDb().transaction((t) => appendEvents(c.id, user.id, [{ type: 'report-queued', payload: { to } }], t))
   void deliverDueEmails()
   return ids
+}
+
+/**
+ * Runs delivery now and waits for it. A run already under way may have picked its e-mails before
+ * the caller made one due, so a second run follows; it costs one query when nothing is left.
+ */
+export async function retryDeliveryNow(): Promise<void> {
+  await deliverDueEmails()
+  await deliverDueEmails()
 }

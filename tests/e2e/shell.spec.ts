@@ -3,10 +3,10 @@ import { expect, test } from '@playwright/test'
 import { DESKTOP, PHONE, showNavigation, signIn } from './helpers'
 
 const ROLE_NAV: Record<string, { email: string; sees: string[]; hidden: string[] }> = {
-  technician: { email: 'tech@rimecase.demo', sees: ['Home', 'Units'], hidden: ['Users'] },
-  engineer: { email: 'engineer@rimecase.demo', sees: ['Home', 'Units'], hidden: ['Users'] },
-  trainer: { email: 'trainer@rimecase.demo', sees: ['Home', 'Units'], hidden: ['Users'] },
-  admin: { email: 'admin@rimecase.demo', sees: ['Home', 'Units', 'Users'], hidden: [] },
+  technician: { email: 'tech@rimecase.demo', sees: ['Home', 'Units'], hidden: ['Users', 'Outbox'] },
+  engineer: { email: 'engineer@rimecase.demo', sees: ['Home', 'Units'], hidden: ['Users', 'Outbox'] },
+  trainer: { email: 'trainer@rimecase.demo', sees: ['Home', 'Units'], hidden: ['Users', 'Outbox'] },
+  admin: { email: 'admin@rimecase.demo', sees: ['Home', 'Units', 'Users', 'Outbox'], hidden: [] },
 }
 
 async function expectNoSeriousA11yIssues(page: import('@playwright/test').Page) {
