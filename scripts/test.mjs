@@ -6,7 +6,7 @@
 import { randomBytes } from 'node:crypto'
 import { chmodSync, mkdtempSync, rmSync } from 'node:fs'
 import { join } from 'node:path'
-import { spawnSync } from 'node:child_process'
+import { spawn } from 'node:child_process'
 import { ROOT, ensureChromium, ensureNodeModules, ensurePostgresBinaries, freePort, startChild, step, waitForHttp } from './lib/system.mjs'
 import { buildIfStale, migrateAndSeed } from './lib/project.mjs'
 
@@ -14,11 +14,17 @@ const bin = (name) => join(ROOT, 'node_modules', '.bin', name)
 const results = []
 const cleanups = []
 
-function runStep(name, cmd, args, env = {}) {
+// Asynchronous on purpose: the SMTP fake runs in this process, and a blocking spawn would stop it
+// from answering the app while the tests that wait for report e-mails are running.
+async function runStep(name, cmd, args, env = {}) {
   step(`Test step: ${name}`)
   const started = Date.now()
-  const r = spawnSync(cmd, args, { cwd: ROOT, stdio: 'inherit', env: { ...process.env, ...env } })
-  const ok = r.status === 0
+  const child = spawn(cmd, args, { cwd: ROOT, stdio: 'inherit', env: { ...process.env, ...env } })
+  const code = await new Promise((resolve) => {
+    child.once('error', () => resolve(1))
+    child.once('exit', (status) => resolve(status ?? 1))
+  })
+  const ok = code === 0
   results.push({ name, ok, seconds: (Date.now() - started) / 1000 })
   return ok
 }
@@ -51,9 +57,9 @@ async function main() {
 
   const sessionPassword = randomBytes(32).toString('hex')
   const common = { DATABASE_URL: cluster.url, CHROMIUM_PATH: chromium }
-  runStep('typecheck', bin('nuxt'), ['typecheck'])
-  runStep('unit tests', bin('vitest'), ['run', '--project', 'unit'], common)
-  const built = runStep('build', process.execPath, ['-e', 'import("./scripts/lib/project.mjs").then(m => m.buildIfStale())'])
+  await runStep('typecheck', bin('nuxt'), ['typecheck'])
+  await runStep('unit tests', bin('vitest'), ['run', '--project', 'unit'], common)
+  const built = await runStep('build', process.execPath, ['-e', 'import("./scripts/lib/project.mjs").then(m => m.buildIfStale())'])
   if (!built) return
 
   const { startSmtpFake } = await import('./lib/smtp.mjs')
@@ -70,8 +76,8 @@ async function main() {
   await waitForHttp(`${baseUrl}/api/health`)
 
   const served = { ...common, RIMECASE_TEST_BASE_URL: baseUrl, RIMECASE_OUTBOX_DIR: outbox }
-  runStep('API tests', bin('vitest'), ['run', '--project', 'api'], served)
-  runStep('browser tests', bin('playwright'), ['test'], served)
+  await runStep('API tests', bin('vitest'), ['run', '--project', 'api'], served)
+  await runStep('browser tests', bin('playwright'), ['test'], served)
   console.log(`\nnpm test wall time: ${((Date.now() - t0) / 1000).toFixed(0)} s`)
 }
 

@@ -11,6 +11,7 @@ import { atmosphericPressureAtAltitude } from '#shared/utils/properties'
 const RETRY_DELAYS_S = [30, 120, 600, 3600, 21600]
 let transport: nodemailer.Transporter | undefined
 let delivering: Promise<void> | undefined
+let lookAgain = false
 
 function mailer() {
   const { smtp } = useRuntimeConfig()
@@ -47,11 +48,22 @@ async function sendOne(email: Awaited<ReturnType<typeof dueEmails>>[number]) {
   }
 }
 
-/** Sends every e-mail that is due; concurrent calls share one run. Never throws. */
+/**
+ * Sends every e-mail that is due; concurrent calls share one run. A call made during a run makes
+ * it look again when it ends, so an e-mail queued meanwhile goes out now rather than at the next
+ * timer tick. Never throws.
+ */
 export function deliverDueEmails(): Promise<void> {
-  delivering ??= (async () => {
+  if (delivering) {
+    lookAgain = true
+    return delivering
+  }
+  delivering = (async () => {
     try {
-      for (const email of await dueEmails()) await sendOne(email)
+      do {
+        lookAgain = false
+        for (const email of await dueEmails()) await sendOne(email)
+      } while (lookAgain)
     } catch (error) {
       console.error('[mail] delivery run failed:', error instanceof Error ? error.message : error)
     } finally {
@@ -74,11 +86,3 @@ export async function queueServiceReport(user: User, c: CaseDto, recipients?: st
   return ids
 }
 
-/**
- * Runs delivery now and waits for it. A run already under way may have picked its e-mails before
- * the caller made one due, so a second run follows; it costs one query when nothing is left.
- */
-export async function retryDeliveryNow(): Promise<void> {
-  await deliverDueEmails()
-  await deliverDueEmails()
-}

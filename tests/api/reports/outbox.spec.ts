@@ -10,15 +10,17 @@ interface Summary {
 }
 
 // Delivery runs in the background after closing; wait for it, but not for ever.
-async function waitForMessage(admin: ApiClient, subjectPart: string, timeoutMs = 10_000): Promise<Summary> {
+async function waitForMessage(admin: ApiClient, subjectPart: string, timeoutMs = 15_000): Promise<Summary> {
   const until = Date.now() + timeoutMs
+  let seen: string[] = []
   while (Date.now() < until) {
     const list = await admin.get<Summary[]>('/api/outbox')
     const found = list.body.find((m) => m.subject.includes(subjectPart))
     if (found) return found
+    seen = list.body.map((m) => m.subject)
     await new Promise((resolve) => setTimeout(resolve, 250))
   }
-  throw new Error(`no message with "${subjectPart}" in the outbox after ${timeoutMs} ms`)
+  throw new Error(`no message with "${subjectPart}" in the outbox after ${timeoutMs} ms; it holds: ${JSON.stringify(seen)}`)
 }
 
 describe('report e-mail and the outbox', () => {
@@ -28,7 +30,9 @@ describe('report e-mail and the outbox', () => {
     await closeCase(tech, id)
 
     const admin = await signedIn(DEMO.admin)
-    const message = await waitForMessage(admin, `(case ${id})`)
+    const message = await waitForMessage(admin, `(case ${id})`).catch(async (error: Error) => {
+      throw new Error(`${error.message}; the case's e-mails: ${JSON.stringify((await tech.get(`/api/cases/${id}`)).body.emails)}`)
+    })
     expect(message.attachments).toEqual([
       expect.objectContaining({ filename: `rimecase-case-${id}-report.pdf`, contentType: 'application/pdf', size: expect.any(Number) }),
     ])

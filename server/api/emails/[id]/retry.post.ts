@@ -9,6 +9,6 @@ export default defineEventHandler(async (event) => {
   if (before === 'sent') {
     throw createError({ status: 409, statusText: 'Conflict', message: 'This e-mail was already sent. Use "Send" on the report to send it again.' })
   }
-  await retryDeliveryNow()
+  await deliverDueEmails()
   return (await findEmail(user.organisationId, id))!
 })
