@@ -1,5 +1,6 @@
 import { IdParamsSchema } from '#shared/schemas/common'
 import { SendReportSchema } from '#shared/schemas/reports'
+import type { ReportSendResult } from '#shared/types/reports'
 
 // Queues the report e-mail; delivery (and its retries) runs in the background.
 export default defineEventHandler(async (event) => {
@@ -12,5 +13,5 @@ export default defineEventHandler(async (event) => {
     throw createError({ status: 422, statusText: 'Unprocessable Entity', message: 'No one at this site receives reports. Enter an e-mail address to send it to.' })
   }
   setResponseStatus(event, 202)
-  return { queued: queued.length, emails: (await caseOr404(user, id)).emails }
+  return { queued: queued.length, emails: (await caseOr404(user, id)).emails } satisfies ReportSendResult
 })
