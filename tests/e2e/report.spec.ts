@@ -40,6 +40,9 @@ test('an admin reads the report e-mail in the outbox and opens the printable rep
   await expect(page.getByRole('heading', { level: 2, name: new RegExp(`case ${caseId}\\)`) })).toBeVisible()
   const pdfLink = page.getByRole('link', { name: new RegExp(`rimecase-case-${caseId}-report\\.pdf`) })
   await expect(pdfLink).toBeVisible()
+  // The same message opened straight from its address, rendered on the server.
+  await page.reload()
+  await expect(page.getByRole('heading', { level: 2, name: new RegExp(`case ${caseId}\\)`) })).toBeVisible()
   const pdf = await page.request.get((await pdfLink.getAttribute('href'))!)
   expect(pdf.headers()['content-type']).toBe('application/pdf')
   expect((await pdf.body()).subarray(0, 4).toString()).toBe('%PDF')
