@@ -53,7 +53,9 @@ async function main() {
   buildIfStale()
 
   const { startSmtpFake } = await import('./lib/smtp.mjs')
-  const smtp = await startSmtpFake({ port: Number(process.env.SMTP_PORT || env.SMTP_PORT || 0) })
+  // The fake writes the folder the app's Outbox page reads, so both get the same path.
+  const outboxDir = process.env.NUXT_SMTP_OUTBOX_DIR || env.NUXT_SMTP_OUTBOX_DIR || join(ROOT, '.data', 'outbox')
+  const smtp = await startSmtpFake({ port: Number(process.env.SMTP_PORT || env.SMTP_PORT || 0), dir: outboxDir })
   cleanups.push(() => smtp.close())
 
   const port = Number(process.env.PORT || 3000)
@@ -67,6 +69,8 @@ async function main() {
     NUXT_DATABASE_URL: databaseUrl,
     NUXT_SMTP_HOST: '127.0.0.1',
     NUXT_SMTP_PORT: String(smtp.port),
+    NUXT_SMTP_OUTBOX_DIR: smtp.dir,
+    NUXT_UPLOAD_DIR: process.env.NUXT_UPLOAD_DIR || env.NUXT_UPLOAD_DIR || join(ROOT, '.data', 'uploads'),
     NUXT_SESSION_PASSWORD: env.NUXT_SESSION_PASSWORD,
   })
   cleanups.push(

@@ -18,7 +18,10 @@ async function runStep(name, cmd, args, env = {}) {
   step(`Test step: ${name}`)
   const started = Date.now()
   const child = spawn(cmd, args, { cwd: ROOT, stdio: 'inherit', env: { ...process.env, ...env } })
-  const code = await new Promise((resolve) => child.once('exit', (c, signal) => resolve(c ?? (signal ? 1 : 0))))
+  const code = await new Promise((resolve) => {
+    child.once('error', () => resolve(1))
+    child.once('exit', (c) => resolve(c ?? 1))
+  })
   const ok = code === 0
   results.push({ name, ok, seconds: (Date.now() - started) / 1000 })
   return ok

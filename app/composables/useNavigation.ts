@@ -13,6 +13,7 @@ const NAV_ITEMS: NavItem[] = [
   { to: '/units', label: 'Units', permission: 'equipment:read' },
   { to: '/calculator', label: 'Calculator', permission: 'calculator:use' },
   { to: '/admin/users', label: 'Users', permission: 'users:manage' },
+  { to: '/admin/outbox', label: 'Outbox', permission: 'outbox:read' },
 ]
 
 /** Navigation entries the signed-in user's role may use. */

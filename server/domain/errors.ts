@@ -16,3 +16,15 @@ export class ConflictError extends Error {
 export class InvalidStateError extends Error {
   override name = 'InvalidStateError'
 }
+/** The input is malformed in a way no schema catches (e.g. an empty file). */
+export class BadInputError extends Error {
+  override name = 'BadInputError'
+}
+/** The input is larger than allowed. */
+export class TooLargeError extends Error {
+  override name = 'TooLargeError'
+}
+/** The input's content is of a type that is not accepted. */
+export class UnsupportedTypeError extends Error {
+  override name = 'UnsupportedTypeError'
+}

@@ -4,11 +4,11 @@ import { findActiveUser } from '#server/db/repositories/users'
 import { can, type Permission } from '#shared/utils/permissions'
 
 /**
- * Identifies the signed-in, still-active user (401 otherwise) and checks `permission` (403).
- * Every protected route calls this first; the session alone is not trusted, so a deactivated
- * user is refused on the next request.
+ * Identifies the signed-in, still-active user (401 otherwise) and checks `permission` (403);
+ * given a list, any one of them is enough. Every protected route calls this first; the session
+ * alone is not trusted, so a deactivated user is refused on the next request.
  */
-export async function requireUser(event: H3Event, permission?: Permission): Promise<User> {
+export async function requireUser(event: H3Event, permission?: Permission | readonly Permission[]): Promise<User> {
   const session = await getUserSession(event)
   if (!session.user) throw createError({ status: 401, statusText: 'Unauthorized', message: 'Sign in first' })
   const current = await findActiveUser(session.user.id)
@@ -17,7 +17,8 @@ export async function requireUser(event: H3Event, permission?: Permission): Prom
     throw createError({ status: 401, statusText: 'Unauthorized', message: 'Your account is no longer active. Sign in again.' })
   }
   const user: User = { id: current.id, email: current.email, name: current.name, role: current.role, organisationId: current.organisationId }
-  if (permission && !can(user.role, permission)) {
+  const anyOf = permission === undefined ? [] : typeof permission === 'string' ? [permission] : permission
+  if (anyOf.length && !anyOf.some((p) => can(user.role, p))) {
     throw createError({ status: 403, statusText: 'Forbidden', message: 'Your role may not do this' })
   }
   event.context.user = user

@@ -1,5 +1,5 @@
-import { ConflictError, ForbiddenError, InvalidStateError, NotFoundError } from '#server/domain/errors'
 import { OutOfRangeError, UnitError, UnknownRefrigerantError } from '#shared/utils/properties'
+import { BadInputError, ConflictError, ForbiddenError, InvalidStateError, NotFoundError, TooLargeError, UnsupportedTypeError } from '#server/domain/errors'
 
 const STATUS: [new (...args: never[]) => Error, number, string][] = [
   [NotFoundError, 404, 'Not Found'],
@@ -10,6 +10,9 @@ const STATUS: [new (...args: never[]) => Error, number, string][] = [
   [UnknownRefrigerantError, 404, 'Not Found'],
   [OutOfRangeError, 422, 'Unprocessable Entity'],
   [UnitError, 400, 'Bad Request'],
+  [BadInputError, 400, 'Bad Request'],
+  [TooLargeError, 413, 'Content Too Large'],
+  [UnsupportedTypeError, 415, 'Unsupported Media Type'],
 ]
 
 /** Extra data a client can act on: the valid range of an out-of-range input, the allowed units. */

@@ -36,7 +36,7 @@ async function sendOne(email: Awaited<ReturnType<typeof dueEmails>>[number]) {
       to: email.toAddress,
       subject: email.subject,
       text: [`${report.title} (${report.reference})`, `Technician: ${report.technician}`, ...lines, '', 'The full report is attached as a PDF.'].join('\n'),
-      attachments: [{ filename: `rimecase-case-${c.id}-report.pdf`, content: pdf, contentType: 'application/pdf' }],
+      attachments: [{ filename: reportPdfName(c.id), content: pdf, contentType: 'application/pdf' }],
     })
     await recordAttempt(email.id, { ok: true, messageId: info.messageId })
     await useDb().transaction((t) => appendEvents(c.id, null, [{ type: 'report-sent', payload: { to: email.toAddress, emailId: email.id } }], t))

@@ -25,6 +25,11 @@ async function loadFonts() {
   return fonts
 }
 
+/** File name of a case's report PDF, the same in downloads and e-mail attachments. */
+export function reportPdfName(caseId: number): string {
+  return `rimecase-case-${caseId}-report.pdf`
+}
+
 /** Renders a service report to PDF bytes with the bundled fonts. */
 export async function renderReportPdf(report: ServiceReport): Promise<Buffer> {
   const f = await loadFonts()

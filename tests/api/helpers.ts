@@ -29,6 +29,11 @@ export class ApiClient {
     return { status: res.status, body: parsed as T, headers: res.headers }
   }
 
+  /** The raw response, for files: the caller reads the bytes and headers it needs. */
+  raw(path: string): Promise<Response> {
+    return fetch(`${BASE_URL}${path}`, { headers: this.cookie ? { cookie: this.cookie } : {}, redirect: 'manual' })
+  }
+
   get<T = any>(path: string) {
     return this.request<T>('GET', path)
   }

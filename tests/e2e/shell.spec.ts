@@ -3,10 +3,10 @@ import { expect, test } from '@playwright/test'
 import { DESKTOP, PHONE, showNavigation, signIn } from './helpers'
 
 const ROLE_NAV: Record<string, { email: string; sees: string[]; hidden: string[] }> = {
-  technician: { email: 'tech@rimecase.demo', sees: ['Home', 'Units', 'Calculator'], hidden: ['Users'] },
-  engineer: { email: 'engineer@rimecase.demo', sees: ['Home', 'Units', 'Calculator'], hidden: ['Users'] },
-  trainer: { email: 'trainer@rimecase.demo', sees: ['Home', 'Units', 'Calculator'], hidden: ['Users'] },
-  admin: { email: 'admin@rimecase.demo', sees: ['Home', 'Units', 'Calculator', 'Users'], hidden: [] },
+  technician: { email: 'tech@rimecase.demo', sees: ['Home', 'Cases', 'Units', 'Calculator'], hidden: ['Users', 'Outbox'] },
+  engineer: { email: 'engineer@rimecase.demo', sees: ['Home', 'Cases', 'Units', 'Calculator'], hidden: ['Users', 'Outbox'] },
+  trainer: { email: 'trainer@rimecase.demo', sees: ['Home', 'Cases', 'Units', 'Calculator'], hidden: ['Users', 'Outbox'] },
+  admin: { email: 'admin@rimecase.demo', sees: ['Home', 'Cases', 'Units', 'Calculator', 'Users', 'Outbox'], hidden: [] },
 }
 
 async function expectNoSeriousA11yIssues(page: import('@playwright/test').Page) {

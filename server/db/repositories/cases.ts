@@ -82,6 +82,7 @@ function eventDto(e: CaseEvent & { byUser?: User | null }, names: Map<number, st
   return { ...e.payload, id: Number(e.id), at: e.at.toISOString(), type: e.type as CaseEventDto['type'], by: e.byUserId ? names.get(e.byUserId) ?? null : null, byUserId: e.byUserId }
 }
 
+/** An upload row as the API shows it, with the URLs that serve its file and preview. */
 export function uploadDto(u: Upload): UploadDto {
   return {
     id: u.id, mime: u.mime, bytes: u.bytes, originalName: u.originalName, purpose: u.purpose,
@@ -89,7 +90,8 @@ export function uploadDto(u: Upload): UploadDto {
   }
 }
 
-function emailDto(e: OutboundEmail): EmailDto {
+/** An e-mail row as the API shows it. */
+export function emailDto(e: OutboundEmail): EmailDto {
   return { id: e.id, toAddress: e.toAddress, subject: e.subject, status: e.status, attempts: e.attempts, lastError: e.lastError, sentAt: iso(e.sentAt) }
 }
 

@@ -1,5 +1,8 @@
 import { Op } from 'sequelize'
+import type { EmailDto } from '#shared/types/cases'
 import { Contact, OutboundEmail, Unit } from '../models'
+import { normaliseMessageId } from '#server/domain/outbox/outbox-message'
+import { emailDto } from './cases'
 
 /** Report recipients of a unit's site. */
 export async function reportRecipients(organisationId: number, unitId: number): Promise<string[]> {
@@ -32,3 +35,24 @@ export async function recordAttempt(id: number, outcome: { ok: true; messageId: 
   if (outcome.ok) await row.update({ status: 'sent', attempts: row.attempts + 1, messageId: outcome.messageId, sentAt: new Date(), lastError: null, nextAttemptAt: null })
   else await row.update({ status: 'failed', attempts: row.attempts + 1, lastError: outcome.error, nextAttemptAt: outcome.retryAt })
 }
+
+/** One e-mail of the organisation as the API shows it, or null. */
+export async function findEmail(organisationId: number, id: number): Promise<EmailDto | null> {
+  const row = await OutboundEmail.findOne({ where: { id, organisationId } })
+  return row ? emailDto(row) : null
+}
+
+/** Makes an unsent e-mail of the organisation due now; returns its state before, or null if absent. */
+export async function makeEmailDue(organisationId: number, id: number): Promise<EmailDto['status'] | null> {
+  const row = await OutboundEmail.findOne({ where: { id, organisationId } })
+  if (!row) return null
+  if (row.status !== 'sent') await row.update({ nextAttemptAt: new Date() })
+  return row.status
+}
+
+/** Message-IDs of the organisation's sent e-mails, normalised (see normaliseMessageId). */
+export async function sentMessageIds(organisationId: number): Promise<Set<string>> {
+  const rows = await OutboundEmail.findAll({ where: { organisationId, messageId: { [Op.ne]: null } }, attributes: ['messageId'] })
+  return new Set(rows.map((r) => normaliseMessageId(r.messageId!)))
+}
+

@@ -1,29 +1,12 @@
 // The service report as data: the same model feeds the printable page, the PDF and the e-mail.
 // Pure: it reads a case record and the property module, and formats numbers with their units.
 import type { CaseDto } from '#shared/types/cases'
+import type { ReportRow, ReportSection, ServiceReport } from '#shared/types/reports'
 import type { Reading, Stage, StageDerived } from '#shared/types/diagnosis'
 import { findRefrigerant, isDesignation, saturationTemperature, toKpaAbs } from '#shared/utils/properties'
 import { latestReadings } from '../cases/case-record'
 
-export interface ReportRow {
-  label: string
-  value: string
-  note?: string
-}
-export interface ReportSection {
-  title: string
-  rows: ReportRow[]
-}
-export interface ServiceReport {
-  title: string
-  reference: string
-  organisation: string
-  technician: string
-  openedAt: string
-  closedAt: string | null
-  sections: ReportSection[]
-  safetyNotes: string[]
-}
+export type { ReportRow, ReportSection, ServiceReport }
 
 const STAGE_LABEL: Record<Stage, string> = { high: 'High stage', low: 'Low stage', single: 'System' }
 const QUANTITY_LABEL: Record<string, string> = {
