@@ -2,6 +2,10 @@
 // Reads DATABASE_URL from the environment (runtime config is not available outside Nitro).
 import { createSequelize } from '#server/db/connection'
 import { createMigrator } from '#server/db/migrator'
+import { Organisation } from '#server/db/models'
+import { insertKnowledgeBaseVersion } from '#server/db/repositories/knowledge'
+import { loadKnowledgeBaseFromDirectory } from '#server/domain/diagnosis/content-loader'
+import { CONTENT_DIR } from '#server/db/seeders/20261202030200-import-knowledge-base'
 
 const ROOT = new URL('..', import.meta.url).pathname
 
@@ -16,11 +20,23 @@ async function main(command: string | undefined) {
     } else if (command === 'seed') {
       const done = await createMigrator(sequelize, ROOT, 'seeders').up()
       console.log(`seeders: ${done.length} applied${done.length ? ` (${done.map((d) => d.name).join(', ')})` : ' (demo already seeded)'}`)
+    } else if (command === 'kb-import') {
+      // Validates content-src and stores it as a new version of every organisation (or one, with
+      // --org <slug>): a draft by default, the published one with --publish. Safe to repeat.
+      const source = loadKnowledgeBaseFromDirectory(CONTENT_DIR)
+      const publish = process.argv.includes('--publish')
+      const slug = process.argv[process.argv.indexOf('--org') + 1]
+      const orgs = await Organisation.findAll({ where: process.argv.includes('--org') && slug ? { slug } : {} })
+      const label = `content-src ${new Date().toISOString().slice(0, 16).replace('T', ' ')}`
+      for (const org of orgs) {
+        const version = await sequelize.transaction((t) => insertKnowledgeBaseVersion(org.id, source, { label, status: publish ? 'published' : 'draft' }, t))
+        console.log(`${org.slug}: version ${version.id} (${version.status}), ${source.causes.length} causes, ${source.tests.length} tests, ${source.rules.length} rules`)
+      }
     } else if (command === 'status') {
       const pending = await createMigrator(sequelize, ROOT, 'migrations').pending()
       console.log(`pending migrations: ${pending.map((p) => p.name).join(', ') || 'none'}`)
     } else {
-      throw new Error('usage: db.ts migrate | seed | status')
+      throw new Error('usage: db.ts migrate | seed | status | kb-import [--publish] [--org <slug>]')
     }
   } finally {
     await sequelize.close()

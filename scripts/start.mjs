@@ -46,6 +46,9 @@ async function database(env) {
 }
 
 async function main() {
+  const port = Number(process.env.PORT || 3000)
+  const host = '127.0.0.1'
+  if (await portInUse(port)) throw new Error(`Port ${port} on ${host} is already in use; stop what uses it or set PORT to another port`)
   ensureNodeModules()
   const env = ensureSessionSecret()
   const databaseUrl = await database(env)
@@ -58,8 +61,6 @@ async function main() {
   const smtp = await startSmtpFake({ port: Number(process.env.SMTP_PORT || env.SMTP_PORT || 0), dir: outboxDir })
   cleanups.push(() => smtp.close())
 
-  const port = Number(process.env.PORT || 3000)
-  const host = '127.0.0.1'
   const app = startChild('app', process.execPath, ['.output/server/index.mjs'], {
     ...env,
     HOST: host,

@@ -1,5 +1,5 @@
 import { useLocalStorage } from '@vueuse/core'
-import { defineStore } from 'pinia'
+import { defineStore, skipHydrate } from 'pinia'
 
 export interface ReadingDraft {
   stage: string
@@ -39,5 +39,6 @@ export const useCaseDraftStore = defineStore('caseDrafts', () => {
   }
   const queuedFor = (caseId: number) => queue.value.filter((c) => c.caseId === caseId)
 
-  return { drafts, notes, queue, enqueue, remove, markFailed, queuedFor }
+  // Kept in this browser's storage, never in the server-rendered state, so hydration cannot wipe them.
+  return { drafts: skipHydrate(drafts), notes: skipHydrate(notes), queue: skipHydrate(queue), enqueue, remove, markFailed, queuedFor }
 })

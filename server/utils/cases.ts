@@ -9,8 +9,8 @@ import type { RankResponse } from '#shared/types/diagnosis'
 import type { UnitDto } from '#shared/types/equipment-dto'
 
 /** The case of the user's organisation, or 404. */
-export async function caseOr404(user: User, id: number): Promise<CaseDto> {
-  const found = await findCase(user.organisationId, id)
+export async function caseOr404(user: User, id: number, knownUnit?: UnitDto): Promise<CaseDto> {
+  const found = await findCase(user.organisationId, id, knownUnit)
   if (!found) throw notFound('Case')
   return found
 }
@@ -55,5 +55,5 @@ export async function changeCase(
       await saveCase(id, ranking ? { ...changes, ranking } : changes, transaction)
     })
   })
-  return caseOr404(user, id)
+  return caseOr404(user, id, unit)
 }

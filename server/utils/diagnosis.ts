@@ -9,31 +9,39 @@ import type { Cause, RankRequest, RankResponse, Stage } from '#shared/types/diag
 // learned prior counts are kept for a few seconds, and dropped at once when a case closes or a
 // version is published, so ranking requests do not query them every time.
 const versions = new Map<number, KnowledgeBase>()
-const publishedIds = new Map<number, { id: number | null; until: number }>()
+const published = new Map<number, { kb: Promise<KnowledgeBase | null>; until: number }>()
 const learned = new Map<string, { counts: LearnedCount[]; until: number }>()
 const TTL_MS = 5_000
 
 /** Forgets cached published-version ids and learned counts of an organisation. */
 export function invalidateDiagnosisCache(organisationId: number) {
-  publishedIds.delete(organisationId)
+  published.delete(organisationId)
   for (const key of learned.keys()) if (key.startsWith(`${organisationId}|`)) learned.delete(key)
+}
+
+async function loadPublished(organisationId: number): Promise<KnowledgeBase | null> {
+  const version = await findPublishedVersion(organisationId)
+  if (!version) return null
+  const known = versions.get(version.id)
+  if (known) return known
+  const content = await loadVersionContent(version)
+  const checked = knowledgeBaseSourceSchema.parse({ causes: content.causes, tests: content.tests, rules: content.rules })
+  const kb = { ...checked, version: content.version }
+  versions.set(version.id, kb)
+  return kb
 }
 
 /** The organisation's published knowledge base, validated; 503 when none is published. */
 export async function publishedKnowledgeBase(organisationId: number): Promise<KnowledgeBase> {
   const now = Date.now()
-  let entry = publishedIds.get(organisationId)
+  let entry = published.get(organisationId)
   if (!entry || entry.until < now) {
-    const version = await findPublishedVersion(organisationId)
-    entry = { id: version?.id ?? null, until: now + TTL_MS }
-    publishedIds.set(organisationId, entry)
-    if (version && !versions.has(version.id)) {
-      const content = await loadVersionContent(version)
-      const checked = knowledgeBaseSourceSchema.parse({ causes: content.causes, tests: content.tests, rules: content.rules })
-      versions.set(version.id, { ...checked, version: content.version })
-    }
+    // One lookup per organisation at a time; concurrent requests share it.
+    entry = { kb: loadPublished(organisationId), until: now + TTL_MS }
+    published.set(organisationId, entry)
+    entry.kb.catch(() => published.delete(organisationId))
   }
-  const kb = entry.id === null ? undefined : versions.get(entry.id)
+  const kb = await entry.kb
   if (!kb) throw createError({ status: 503, statusText: 'Service Unavailable', message: 'No knowledge base is published for your organisation yet' })
   return kb
 }

@@ -3,6 +3,7 @@ import type { CaseClosure, CaseDto, CaseEventDto, CaseListItem, CaseReading, Cas
 import type { RankResponse, Symptom } from '#shared/types/diagnosis'
 import type { CaseState, NewEvent } from '#server/domain/cases/case-record'
 import { CaseEvent, Customer, OutboundEmail, RefrigerantTransaction, ServiceCase, Site, Unit, Upload, User } from '../models'
+import type { UnitDto } from '#shared/types/equipment-dto'
 import { findUnit } from './equipment'
 
 export interface LockedCase extends CaseState {
@@ -78,7 +79,8 @@ export async function insertTransactions(
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null)
 
-function eventDto(e: CaseEvent & { byUser?: User | null }, names: Map<number, string>): CaseEventDto {
+type EventRow = Pick<CaseEvent, 'id' | 'at' | 'type' | 'byUserId' | 'payload'>
+function eventDto(e: EventRow, names: Map<number, string>): CaseEventDto {
   return { ...e.payload, id: Number(e.id), at: e.at.toISOString(), type: e.type as CaseEventDto['type'], by: e.byUserId ? names.get(e.byUserId) ?? null : null, byUserId: e.byUserId }
 }
 
@@ -95,17 +97,21 @@ export function emailDto(e: OutboundEmail): EmailDto {
   return { id: e.id, toAddress: e.toAddress, subject: e.subject, status: e.status, attempts: e.attempts, lastError: e.lastError, sentAt: iso(e.sentAt) }
 }
 
-/** The full case record of the organisation, or null. */
-export async function findCase(organisationId: number, id: number): Promise<CaseDto | null> {
+/**
+ * The full case record of the organisation, or null. `knownUnit` saves a query when the caller
+ * already loaded the case's unit. The timeline grows with every step, so its rows are read raw
+ * (no model instances).
+ */
+export async function findCase(organisationId: number, id: number, knownUnit?: UnitDto): Promise<CaseDto | null> {
   const c = await ServiceCase.findOne({ where: { id, organisationId } })
   if (!c) return null
   const [unit, events, transactions, uploads, emails, users] = await Promise.all([
-    findUnit(organisationId, c.unitId),
-    CaseEvent.findAll({ where: { caseId: id }, order: [['id', 'ASC']] }),
+    knownUnit && knownUnit.id === c.unitId ? knownUnit : findUnit(organisationId, c.unitId),
+    CaseEvent.findAll({ where: { caseId: id }, order: [['id', 'ASC']], raw: true }) as unknown as Promise<EventRow[]>,
     RefrigerantTransaction.findAll({ where: { caseId: id }, order: [['id', 'ASC']] }),
     Upload.findAll({ where: { caseId: id, organisationId }, order: [['id', 'ASC']] }),
     OutboundEmail.findAll({ where: { caseId: id, organisationId }, order: [['id', 'ASC']] }),
-    User.findAll({ where: { organisationId }, attributes: ['id', 'name'] }),
+    User.findAll({ where: { organisationId }, attributes: ['id', 'name'], raw: true }),
   ])
   if (!unit) return null
   const names = new Map(users.map((u) => [u.id, u.name]))

@@ -22,8 +22,9 @@ export async function findUserForLogin(email: string) {
 
 /** The active user with this id, or null (deactivated users count as absent). */
 export async function findActiveUser(id: number): Promise<UserRecord | null> {
-  const user = await User.findOne({ where: { id, active: true } })
-  return user ? plain(user) : null
+  // Runs on every request (deactivation must bite at once), so it reads a plain row.
+  const user = (await User.findOne({ where: { id, active: true }, attributes: ['id', 'organisationId', 'email', 'name', 'role', 'active', 'createdAt'], raw: true })) as UserRecord | null
+  return user
 }
 
 /** All users of one organisation, by name. */
