@@ -18,14 +18,23 @@ export async function queueEmails(organisationId: number, caseId: number, to: st
   return rows.map((r) => r.id)
 }
 
-/** E-mails due for a (re)try. */
+/**
+ * Claims the e-mails due for a (re)try: moves their next attempt five minutes on in the same
+ * statement, with SKIP LOCKED, so two server processes never send the same e-mail twice; a
+ * process that dies mid-send leaves the e-mail due again after those five minutes.
+ */
 export async function dueEmails(limit = 20) {
-  const rows = await OutboundEmail.findAll({
-    where: { status: { [Op.in]: ['pending', 'failed'] }, nextAttemptAt: { [Op.lte]: new Date() } },
-    order: [['id', 'ASC']],
-    limit,
-  })
-  return rows.map((r) => ({ id: r.id, organisationId: r.organisationId, caseId: r.caseId, toAddress: r.toAddress, subject: r.subject, attempts: r.attempts }))
+  const [rows] = await OutboundEmail.sequelize!.query(
+    `UPDATE outbound_emails SET next_attempt_at = now() + interval '5 minutes'
+      WHERE id IN (SELECT id FROM outbound_emails
+                    WHERE status IN ('pending', 'failed') AND next_attempt_at <= now()
+                    ORDER BY id LIMIT :limit FOR UPDATE SKIP LOCKED)
+      RETURNING id, organisation_id, case_id, to_address, subject, attempts`,
+    { replacements: { limit } },
+  )
+  return (rows as { id: number; organisation_id: number; case_id: number | null; to_address: string; subject: string; attempts: number }[])
+    .sort((a, b) => a.id - b.id)
+    .map((r) => ({ id: r.id, organisationId: r.organisation_id, caseId: r.case_id, toAddress: r.to_address, subject: r.subject, attempts: r.attempts }))
 }
 
 /** Records the outcome of a delivery attempt. */
