@@ -1,4 +1,4 @@
-import { ConflictError, ForbiddenError, InvalidStateError, NotFoundError } from '#server/domain/errors'
+import { ConflictError, FieldConflictError, FieldNotFoundError, ForbiddenError, InvalidStateError, NotFoundError } from '#server/domain/errors'
 
 const STATUS: [new (...args: never[]) => Error, number, string][] = [
   [NotFoundError, 404, 'Not Found'],
@@ -10,7 +10,10 @@ const STATUS: [new (...args: never[]) => Error, number, string][] = [
 /** Maps a domain error to its HTTP error; anything else is rethrown unchanged. */
 export function toHttpError(error: unknown): never {
   for (const [type, status, statusText] of STATUS) {
-    if (error instanceof type) throw createError({ status, statusText, message: error.message })
+    if (!(error instanceof type)) continue
+    // Field-tied errors carry the same `fieldErrors` shape as a 400, so forms place them beside the field.
+    const field = error instanceof FieldConflictError || error instanceof FieldNotFoundError ? error.field : null
+    throw createError({ status, statusText, message: error.message, ...(field ? { data: { fieldErrors: { [field]: [error.message] } } } : {}) })
   }
   throw error
 }
