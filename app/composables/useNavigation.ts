@@ -10,6 +10,7 @@ export interface NavItem {
 const NAV_ITEMS: NavItem[] = [
   { to: '/', label: 'Home' },
   { to: '/units', label: 'Units', permission: 'equipment:read' },
+  { to: '/customers', label: 'Customers', permission: 'equipment:read' },
   { to: '/admin/users', label: 'Users', permission: 'users:manage' },
 ]
 

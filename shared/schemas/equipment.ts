@@ -99,7 +99,9 @@ const refrigerant = z
   .string({ error: 'Pick a refrigerant' })
   .trim()
   .transform((s) => findRefrigerant(s)?.designation ?? s)
-  .refine((s) => isDesignation(s), { error: (issue) => `Unknown refrigerant ${JSON.stringify(issue.input)}; pick one of ${DESIGNATIONS.join(', ')}` })
+  .refine((s) => isDesignation(s), {
+    error: (issue) => (issue.input === '' ? 'Pick the refrigerant' : `Unknown refrigerant ${JSON.stringify(issue.input)}; pick one of ${DESIGNATIONS.join(', ')}`),
+  })
 
 /** One refrigeration circuit of a unit, as entered from the nameplate. */
 export const UnitStageInputSchema = z
