@@ -11,3 +11,8 @@ export function dateText(iso: string, withTime = false): string {
   const d = new Date(iso)
   return withTime ? d.toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : d.toLocaleDateString('en-GB', { dateStyle: 'medium' })
 }
+
+/** "1 site", "3 sites": a count with its noun in the right number. */
+export function countText(n: number, singular: string, plural = `${singular}s`): string {
+  return `${n} ${n === 1 ? singular : plural}`
+}
