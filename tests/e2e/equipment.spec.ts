@@ -56,6 +56,7 @@ for (const [size, viewport] of [['desktop', DESKTOP], ['phone', PHONE]] as const
     await expect(page.getByRole('heading', { level: 1, name: 'Freezer F-204' })).toBeVisible()
     const high = page.getByRole('article', { name: 'high stage, R404A' })
     const low = page.getByRole('article', { name: 'low stage, R170' })
+    // Safety classes per ASHRAE Standard 34: R404A is A1, ethane (R170) A3.
     await expect(high.getByText('Safety class A1')).toBeVisible()
     await expect(low.getByText('Safety class A3')).toBeVisible()
     await expect(low.getByText('highly flammable')).toBeVisible()
@@ -96,6 +97,18 @@ for (const [size, viewport] of [['desktop', DESKTOP], ['phone', PHONE]] as const
     await expect(page.getByRole('heading', { level: 1, name })).toBeVisible()
     await expect(page).toHaveURL(/\/units\/\d+$/)
     await expect(page.getByRole('article', { name: 'low stage, R170' }).getByText('7.5 L')).toBeVisible()
+
+    await page.getByRole('link', { name: 'Edit unit' }).click()
+    await expect(page.getByLabel('Serial number')).toHaveValue(/^E2E-/)
+    await page.getByLabel('Location on site').fill('Climatic Lab, cell 4')
+    await page.getByRole('group', { name: 'Low stage' }).getByLabel('Reference standing pressure').fill('790')
+    await page.getByRole('button', { name: 'Save unit' }).click()
+    await expect(page.getByRole('group', { name: 'Low stage' }).getByText('Give the reference standing pressure and its ambient temperature together, or neither')).toBeVisible()
+    await page.getByRole('group', { name: 'Low stage' }).getByLabel('Ambient at that pressure').fill('21')
+    await page.getByRole('button', { name: 'Save unit' }).click()
+    await expect(page.getByRole('heading', { level: 1, name })).toBeVisible()
+    await expect(page.getByText('Climatic Lab, cell 4')).toBeVisible()
+    await expect(page.getByRole('article', { name: 'low stage, R170' }).getByText('790 kPa abs at 21 °C')).toBeVisible()
   })
 }
 
@@ -146,6 +159,7 @@ test('a technician adds a customer with a site and a contact, with the form chec
   await siteForm.getByLabel('Altitude').fill('1500')
   await siteForm.getByRole('button', { name: 'Add site' }).click()
   const site = card.getByRole('region', { name: 'Site Quay lab' })
+  // U.S. Standard Atmosphere, 1976 (NOAA/NASA/USAF): 84.56 kPa at 1 500 m.
   await expect(site.getByText('84.56 kPa abs')).toBeVisible()
 
   await site.getByRole('button', { name: 'Add a contact at Quay lab' }).click()
