@@ -11,6 +11,7 @@ const NAV_ITEMS: NavItem[] = [
   { to: '/', label: 'Home' },
   { to: '/cases', label: 'Cases', permission: 'cases:read' },
   { to: '/units', label: 'Units', permission: 'equipment:read' },
+  { to: '/customers', label: 'Customers', permission: 'equipment:read' },
   { to: '/calculator', label: 'Calculator', permission: 'calculator:use' },
   { to: '/admin/users', label: 'Users', permission: 'users:manage' },
   { to: '/admin/outbox', label: 'Outbox', permission: 'outbox:read' },

@@ -28,3 +28,16 @@ export class TooLargeError extends Error {
 export class UnsupportedTypeError extends Error {
   override name = 'UnsupportedTypeError'
 }
+
+/** A clash tied to one input field (a serial or name already in use), so a form can show it there. */
+export class FieldConflictError extends ConflictError {
+  constructor(message: string, readonly field: string) {
+    super(message)
+  }
+}
+/** A record referenced by one input field (a site, a customer) that is missing or not the caller's. */
+export class FieldNotFoundError extends NotFoundError {
+  constructor(message: string, readonly field: string) {
+    super(message)
+  }
+}

@@ -1,5 +1,5 @@
 import { OutOfRangeError, UnitError, UnknownRefrigerantError } from '#shared/utils/properties'
-import { BadInputError, ConflictError, ForbiddenError, InvalidStateError, NotFoundError, TooLargeError, UnsupportedTypeError } from '#server/domain/errors'
+import { BadInputError, ConflictError, FieldConflictError, FieldNotFoundError, ForbiddenError, InvalidStateError, NotFoundError, TooLargeError, UnsupportedTypeError } from '#server/domain/errors'
 
 const STATUS: [new (...args: never[]) => Error, number, string][] = [
   [NotFoundError, 404, 'Not Found'],
@@ -22,16 +22,17 @@ function dataOf(error: Error): Record<string, unknown> | undefined {
     return { range: Object.fromEntries(Object.entries(error.range).filter(([, v]) => Number.isFinite(v))) }
   }
   if (error instanceof UnitError) return { allowed: error.allowed, fieldErrors: { unit: [error.message] } }
+  // Field-tied errors carry the same `fieldErrors` shape as a 400, so forms place them beside the field.
+  if (error instanceof FieldConflictError || error instanceof FieldNotFoundError) return { fieldErrors: { [error.field]: [error.message] } }
   return undefined
 }
 
 /** Maps a domain error to its HTTP error; anything else is rethrown unchanged. */
 export function toHttpError(error: unknown): never {
   for (const [type, status, statusText] of STATUS) {
-    if (error instanceof type) {
-      const data = dataOf(error)
-      throw createError({ status, statusText, message: error.message, ...(data ? { data } : {}) })
-    }
+    if (!(error instanceof type)) continue
+    const data = dataOf(error)
+    throw createError({ status, statusText, message: error.message, ...(data ? { data } : {}) })
   }
   throw error
 }

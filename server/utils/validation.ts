@@ -48,3 +48,10 @@ export function readQueryAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> {
 export function readParamsAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> {
   return check(getValidatedRouterParams(event, (params) => schema.safeParse(params)))
 }
+
+/** Validates a value the server assembled (e.g. a patch merged onto a saved record) with the API's 400. */
+export function parseAs<T>(schema: ZodType<T>, value: unknown): T {
+  const result = schema.safeParse(value)
+  if (!result.success) throw validationError(result.error)
+  return result.data
+}

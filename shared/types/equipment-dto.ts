@@ -1,5 +1,6 @@
 import type { Stage as StageName, UnitKind } from './diagnosis'
 import type { EquipmentClass } from './equipment'
+import type { CaseListItem, RefrigerantTransactionDto, UploadDto } from './cases'
 
 export interface UnitStageDto {
   stage: StageName
@@ -27,4 +28,67 @@ export interface UnitDto {
   siteAltitudeM: number
   design: { cabinetC: number | null; cascadeHxC: number | null }
   stages: UnitStageDto[]
+}
+
+/** One page of a list; `total` counts every match, not just this page. */
+export interface Page<T> {
+  items: T[]
+  total: number
+  page: number
+  pageSize: number
+}
+
+/** A person at a site who may receive service reports. */
+export interface ContactDto {
+  id: number
+  siteId: number
+  name: string
+  email: string
+  phone: string
+  receivesReports: boolean
+}
+
+/** A customer's site; `atmosphericPressureKpa` follows from the altitude (null if outside the formula's range). */
+export interface SiteDto {
+  id: number
+  customerId: number
+  customer: string
+  name: string
+  address: string
+  altitudeM: number
+  atmosphericPressureKpa: number | null
+  unitCount: number
+  contacts: ContactDto[]
+}
+
+export interface CustomerDto {
+  id: number
+  name: string
+  notes: string
+  createdAt: string
+  unitCount: number
+  sites: SiteDto[]
+}
+
+/** What a unit page needs to know about one refrigerant to warn the technician. */
+export interface RefrigerantSafetyDto {
+  designation: string
+  name: string
+  safetyClass: string
+  flammable: boolean
+  toxic: boolean
+  highPressure: boolean
+  cautions: string[]
+}
+
+/** `GET /api/units/{id}/overview`: the unit with its history. */
+export interface UnitOverviewDto {
+  unit: UnitDto
+  refrigerants: RefrigerantSafetyDto[]
+  openCases: CaseListItem[]
+  pastCases: CaseListItem[]
+  pastCaseTotal: number
+  transactions: RefrigerantTransactionDto[]
+  uploads: UploadDto[]
+  nameplate: UploadDto | null
 }

@@ -11,3 +11,17 @@ export const EQUIPMENT_CLASS_LABELS: Record<EquipmentClass, string> = {
   'cold-room': 'Cold room',
   'process-chiller': 'Process chiller',
 }
+
+/** How each unit kind is named on screen; the words themselves are in shared/types/diagnosis.ts. */
+export const UNIT_KIND_LABELS = { cascade: 'Cascade', 'single-stage': 'Single stage' } as const
+
+/** Columns the equipment register can sort by (`GET /api/equipment/units?sort=`). */
+export const UNIT_SORTS = ['name', 'customer', 'kind', 'serial'] as const
+export type UnitSort = (typeof UNIT_SORTS)[number]
+
+/** Orders of the customer list (`GET /api/customers?sort=`). */
+export const CUSTOMER_SORTS = ['name', 'createdAt'] as const
+export type CustomerSort = (typeof CUSTOMER_SORTS)[number]
+
+export const SORT_DIRECTIONS = ['asc', 'desc'] as const
+export type SortDirection = (typeof SORT_DIRECTIONS)[number]

@@ -2,7 +2,7 @@ import { readFileSync, readdirSync } from 'node:fs'
 import { join } from 'node:path'
 import AxeBuilder from '@axe-core/playwright'
 import { expect, test, type Page } from '@playwright/test'
-import { PHONE, signIn } from './helpers'
+import { PHONE, showNavigation, signIn } from './helpers'
 
 async function addReading(page: Page, where: string, quantity: string, value: string, unit?: string) {
   const form = page.getByRole('form', { name: 'Add a reading' })
@@ -26,9 +26,13 @@ test('a technician diagnoses a cascade low stage on a phone, closes the case, an
   await page.setViewportSize(PHONE)
   await signIn(page, 'tech@rimecase.demo')
 
-  await page.goto('/cases/new')
-  const unitOption = await page.getByLabel('Unit').locator('option', { hasText: 'Freezer F-204' }).getAttribute('value')
-  await page.getByLabel('Unit').selectOption(unitOption!)
+  await showNavigation(page)
+  await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Units', exact: true }).click()
+  await page.getByRole('link', { name: /Freezer F-204/ }).first().click()
+  await expect(page.getByRole('heading', { level: 1, name: /Freezer F-204/ })).toBeVisible()
+  await page.getByRole('link', { name: /Start a case/ }).first().click()
+  await expect(page.getByLabel('Unit')).toHaveValue(/\d+/)
+  expect(await page.getByLabel('Unit').locator('option:checked').innerText()).toContain('Freezer F-204')
   await page.getByLabel('Complaint').fill('Cabinet alarm: -41 °C and not pulling down since the weekend')
   await page.getByLabel('Not cooling').check()
   await page.getByRole('button', { name: 'Start the case' }).click()
