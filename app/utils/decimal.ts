@@ -3,7 +3,7 @@
  * typographic minus are accepted, because phones in many locales offer only those. Anything else
  * becomes NaN, which the zod schemas report as "must be a number".
  */
-export function parseDecimal(text: string): number | null {
+export function decimalOrNull(text: string): number | null {
   const clean = text.trim().replace(/\u2212/g, '-').replace(/\s/g, '').replace(',', '.')
   if (clean === '') return null
   return /^[-+]?(\d+\.?\d*|\.\d+)$/.test(clean) ? Number(clean) : Number.NaN

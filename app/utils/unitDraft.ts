@@ -5,7 +5,7 @@ import type { UnitInputDraft } from '#shared/schemas/equipment'
 import type { Stage, UnitKind } from '#shared/types/diagnosis'
 import type { EquipmentClass } from '#shared/types/equipment'
 import type { UnitDto } from '#shared/types/equipment-dto'
-import { decimalText, parseDecimal } from './decimal'
+import { decimalText, decimalOrNull } from './decimal'
 
 export const STAGE_NUMBER_FIELDS = ['chargeG', 'volumeL', 'referenceStandingPressureKpa', 'referenceAmbientC', 'ratedCurrentA'] as const
 export type StageNumberField = (typeof STAGE_NUMBER_FIELDS)[number]
@@ -59,11 +59,11 @@ export function unitInputFrom(draft: UnitDraft): UnitInputDraft {
     name: draft.name, model: draft.model, serial: draft.serial, kind: draft.kind,
     equipmentClass: draft.equipmentClass as EquipmentClass, location: draft.location,
     siteId: draft.siteId === '' ? Number.NaN : Number(draft.siteId),
-    designCabinetC: parseDecimal(draft.designCabinetC),
-    designCascadeHxC: draft.kind === 'cascade' ? parseDecimal(draft.designCascadeHxC) : null,
+    designCabinetC: decimalOrNull(draft.designCabinetC),
+    designCascadeHxC: draft.kind === 'cascade' ? decimalOrNull(draft.designCascadeHxC) : null,
     stages: stagesOfDraft(draft).map((stage) => {
       const s = draft.stages[stage]
-      return { stage, refrigerant: s.refrigerant, ...Object.fromEntries(STAGE_NUMBER_FIELDS.map((f) => [f, parseDecimal(s[f])])) }
+      return { stage, refrigerant: s.refrigerant, ...Object.fromEntries(STAGE_NUMBER_FIELDS.map((f) => [f, decimalOrNull(s[f])])) }
     }),
   }
 }

@@ -28,9 +28,11 @@ test('a technician diagnoses a cascade low stage on a phone, closes the case, an
 
   await showNavigation(page)
   await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Units', exact: true }).click()
-  await page.getByRole('link', { name: /Freezer F-204/ }).first().click()
+  await expect(page.getByRole('heading', { level: 1, name: 'Units' })).toBeVisible()
+  await page.getByRole('link', { name: /Freezer F-204/ }).filter({ visible: true }).first().click()
+  await expect(page).toHaveURL(/\/units\/\d+$/)
   await expect(page.getByRole('heading', { level: 1, name: /Freezer F-204/ })).toBeVisible()
-  await page.getByRole('link', { name: /Start a case/ }).first().click()
+  await page.getByRole('link', { name: /Start a case/ }).filter({ visible: true }).first().click()
   await expect(page.getByLabel('Unit')).toHaveValue(/\d+/)
   expect(await page.getByLabel('Unit').locator('option:checked').innerText()).toContain('Freezer F-204')
   await page.getByLabel('Complaint').fill('Cabinet alarm: -41 °C and not pulling down since the weekend')
@@ -79,8 +81,13 @@ test('a technician diagnoses a cascade low stage on a phone, closes the case, an
   const axe = await new AxeBuilder({ page }).analyze()
   expect(axe.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id)).toEqual([])
 
-  // The service report, with its PDF, reaches the local mail catcher.
+  // The service report, with its PDF, reaches the local mail catcher and the admin's outbox.
   await expect.poll(() => outboxMessages().some((m) => m.includes(`case ${caseId}`) && m.includes('application/pdf')), { timeout: 20_000 }).toBe(true)
+  await page.getByRole('button', { name: 'Sign out' }).click()
+  await signIn(page, 'admin@rimecase.demo')
+  await page.goto('/admin/outbox')
+  await page.getByRole('link', { name: new RegExp(`case ${caseId}\\)`) }).first().click()
+  await expect(page.getByRole('link', { name: new RegExp(`rimecase-case-${caseId}-report\\.pdf`) })).toBeVisible()
 })
 
 test('a reading typed but not sent survives a reload, and one entered offline is sent when the connection returns', async ({ page, context }) => {

@@ -148,6 +148,9 @@ test('a technician adds a customer with a site and a contact, with the form chec
   await page.getByLabel('Search customers and sites').fill(name)
   const card = page.getByRole('article', { name })
   await expect(card).toBeVisible()
+  // Let the search settle: a result list that reloads under the form would reset what is typed.
+  await expect(page.getByText('1–1 of 1')).toBeVisible()
+  await page.waitForLoadState('networkidle')
 
   await card.getByRole('button', { name: `Add a site for ${name}` }).click()
   const siteForm = card.getByRole('form', { name: 'Add a site' })
