@@ -32,6 +32,9 @@ export default defineNuxtConfig({
     session: { cookie: { secure: false }, maxAge: 60 * 60 * 12 },
   },
   nitro: {
+    // One worker per core: the diagnosis is CPU work, and a technician's request should not queue
+    // behind another's. Per-worker caches are short-lived; e-mails are claimed atomically.
+    preset: 'node-cluster',
     experimental: { tasks: false },
     // Serve pre-compressed JS/CSS: technicians load the case page over weak phone connections.
     compressPublicAssets: { gzip: true, brotli: true },

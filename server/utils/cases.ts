@@ -8,6 +8,26 @@ import type { CaseDto } from '#shared/types/cases'
 import type { RankResponse } from '#shared/types/diagnosis'
 import type { UnitDto } from '#shared/types/equipment-dto'
 
+// A case's unit is read on every step of the case but changes rarely: keep it a few seconds.
+// Editing a unit drops the entry at once in this process; other workers see it within TTL.
+const units = new Map<string, { unit: UnitDto; until: number }>()
+const UNIT_TTL_MS = 5_000
+
+/** The unit of the organisation, from a short-lived cache. */
+export async function cachedUnit(organisationId: number, unitId: number): Promise<UnitDto | null> {
+  const key = `${organisationId}|${unitId}`
+  const hit = units.get(key)
+  if (hit && hit.until > Date.now()) return hit.unit
+  const unit = await findUnit(organisationId, unitId)
+  if (unit) units.set(key, { unit, until: Date.now() + UNIT_TTL_MS })
+  return unit
+}
+
+/** Forgets a cached unit after it was edited. */
+export function forgetCachedUnit(organisationId: number, unitId: number) {
+  units.delete(`${organisationId}|${unitId}`)
+}
+
 /** The case of the user's organisation, or 404. */
 export async function caseOr404(user: User, id: number, knownUnit?: UnitDto): Promise<CaseDto> {
   const found = await findCase(user.organisationId, id, knownUnit)
@@ -36,7 +56,7 @@ export async function changeCase(
   // holds one pooled connection while waiting for another.
   const unitId = await caseUnitId(user.organisationId, id)
   if (unitId === null) throw notFound('Case')
-  const unit = await findUnit(user.organisationId, unitId)
+  const unit = await cachedUnit(user.organisationId, unitId)
   if (!unit) throw notFound('Unit')
   const rank = await prepareRanker(user.organisationId, { equipmentClass: unit.equipmentClass })
   await useDb().transaction(async (transaction) => {

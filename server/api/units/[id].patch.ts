@@ -13,5 +13,6 @@ export default defineEventHandler(async (event) => {
   // The merged unit must pass the same checks as a new one (kind against stages and so on).
   const input = parseAs(UnitInputSchema, mergeUnitPatch(saved, patch))
   await withDomainErrors(() => updateUnit(user.organisationId, id, input))
+  forgetCachedUnit(user.organisationId, id)
   return (await findUnit(user.organisationId, id))! satisfies UnitDto
 })

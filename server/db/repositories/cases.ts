@@ -30,21 +30,25 @@ export async function insertCase(
 /** Appends timeline events; the table itself refuses later edits. */
 export async function appendEvents(caseId: number, byUserId: number | null, events: NewEvent[], transaction: Transaction, at?: Date) {
   if (!events.length) return
-  await CaseEvent.bulkCreate(
-    events.map((e) => ({ caseId, byUserId, type: e.type, payload: e.payload, ...(at ? { at } : {}) })),
-    { transaction },
-  )
+  // Every step of every case passes here, so it is one plain multi-row INSERT.
+  const bind: unknown[] = []
+  const rows = events.map((e) => {
+    bind.push(caseId, byUserId, e.type, JSON.stringify(e.payload), at ?? new Date())
+    const n = bind.length
+    return `($${n - 4}, $${n - 3}, $${n - 2}, $${n - 1}::jsonb, $${n})`
+  })
+  await CaseEvent.sequelize!.query(`INSERT INTO case_events (case_id, by_user_id, type, payload, at) VALUES ${rows.join(', ')}`, { bind, transaction })
 }
 
 /** The unit of a case of the organisation, or null. */
 export async function caseUnitId(organisationId: number, id: number): Promise<number | null> {
-  const c = await ServiceCase.findOne({ where: { id, organisationId }, attributes: ['unitId'] })
+  const c = (await ServiceCase.findOne({ where: { id, organisationId }, attributes: ['unitId'], raw: true })) as { unitId: number } | null
   return c?.unitId ?? null
 }
 
 /** Loads a case of the organisation and locks its row until the transaction ends (null if absent). */
 export async function lockCase(organisationId: number, id: number, transaction: Transaction): Promise<LockedCase | null> {
-  const c = await ServiceCase.findOne({ where: { id, organisationId }, transaction, lock: transaction.LOCK.UPDATE })
+  const c = (await ServiceCase.findOne({ where: { id, organisationId }, transaction, lock: transaction.LOCK.UPDATE, raw: true })) as ServiceCase | null
   if (!c) return null
   return {
     id: c.id, organisationId: c.organisationId, unitId: c.unitId, status: c.status, lockVersion: c.lockVersion,
@@ -59,9 +63,20 @@ export async function saveCase(
   changes: Partial<{ symptoms: Symptom[]; readings: CaseReading[]; testResults: CaseTestResult[]; ranking: RankResponse; notes: string; status: 'closed'; closure: CaseClosure; confirmedCauses: CaseClosure['confirmedCauses']; closedAt: Date }>,
   transaction: Transaction,
 ) {
-  await ServiceCase.update(
-    { ...changes, lockVersion: ServiceCase.sequelize!.literal('lock_version + 1') as unknown as number },
-    { where: { id }, transaction },
+  // A plain UPDATE: the JSON columns are sent as JSON text, and the version goes up in the same statement.
+  const columns: Record<string, string> = {
+    symptoms: 'symptoms', readings: 'readings', testResults: 'test_results', ranking: 'ranking', notes: 'notes', status: 'status',
+    closure: 'closure', confirmedCauses: 'confirmed_causes', closedAt: 'closed_at',
+  }
+  const json = new Set(['symptoms', 'readings', 'testResults', 'ranking', 'closure', 'confirmedCauses'])
+  const bind: unknown[] = [id]
+  const sets = Object.entries(changes).map(([key, value]) => {
+    bind.push(json.has(key) ? JSON.stringify(value) : value)
+    return `${columns[key]} = $${bind.length}${json.has(key) ? '::jsonb' : ''}`
+  })
+  await ServiceCase.sequelize!.query(
+    `UPDATE cases SET ${[...sets, 'lock_version = lock_version + 1', 'updated_at = now()'].join(', ')} WHERE id = $1`,
+    { bind, transaction },
   )
 }
 
