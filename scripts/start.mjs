@@ -4,7 +4,7 @@
 // Only Node built-ins are imported at the top: packages may not be installed yet.
 import { existsSync, mkdirSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
-import { ROOT, ensureNodeModules, ensurePostgresBinaries, portInUse, freePort, startChild, step, waitForHttp } from './lib/system.mjs'
+import { ROOT, ensureNodeModules, ensurePostgresBinaries, portInUse, freePort, startChild, step, stopChild, waitForHttp } from './lib/system.mjs'
 import { DEMO_SIGN_INS, buildIfStale, ensureSessionSecret, migrateAndSeed } from './lib/project.mjs'
 
 const DEFAULT_PG_PORT = 54329
@@ -74,14 +74,7 @@ async function main() {
     NUXT_UPLOAD_DIR: process.env.NUXT_UPLOAD_DIR || env.NUXT_UPLOAD_DIR || join(ROOT, '.data', 'uploads'),
     NUXT_SESSION_PASSWORD: env.NUXT_SESSION_PASSWORD,
   })
-  cleanups.push(
-    () =>
-      new Promise((resolve) => {
-        if (app.exitCode !== null) return resolve()
-        app.once('exit', resolve)
-        app.kill('SIGTERM')
-      }),
-  )
+  cleanups.push(() => stopChild(app))
   app.once('exit', (code) => {
     if (!stopping) {
       console.error(`The app stopped (exit ${code}).`)

@@ -3,7 +3,7 @@
 import { randomBytes } from 'node:crypto'
 import { chmodSync, mkdtempSync, rmSync } from 'node:fs'
 import { join } from 'node:path'
-import { ensurePostgresBinaries, freePort, startChild, waitForHttp } from './system.mjs'
+import { ensurePostgresBinaries, freePort, startChild, stopChild, waitForHttp } from './system.mjs'
 import { migrateAndSeed } from './project.mjs'
 
 /** Starts PostgreSQL (migrated and seeded); returns { tmp, databaseUrl, stop }. */
@@ -42,11 +42,7 @@ export async function startServer({ tmp, databaseUrl }) {
   })
   const baseUrl = `http://127.0.0.1:${port}`
   const stop = async () => {
-    await new Promise((resolve) => {
-      if (app.exitCode !== null) return resolve()
-      app.once('exit', resolve)
-      app.kill('SIGTERM')
-    })
+    await stopChild(app)
     await smtp.close()
   }
   try {

@@ -89,13 +89,41 @@ export function portInUse(port) {
   })
 }
 
-/** Starts a long-running child; its output is prefixed so the console stays readable. */
+/**
+ * Starts a long-running child in its own process group; its output is prefixed so the console
+ * stays readable. The server runs one worker process per core, so stopping means signalling the
+ * whole group: `stopChild` does that and waits for the main process to exit.
+ */
 export function startChild(name, cmd, args, env) {
-  const child = spawn(cmd, args, { cwd: ROOT, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'] })
+  const child = spawn(cmd, args, { cwd: ROOT, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe'], detached: true })
   const prefix = (chunk) => chunk.toString().split('\n').filter(Boolean).map((l) => `[${name}] ${l}`).join('\n')
   child.stdout.on('data', (c) => console.log(prefix(c)))
   child.stderr.on('data', (c) => console.error(prefix(c)))
+  // If this script dies without cleaning up, do not leave the group running.
+  process.once('exit', () => signalGroup(child, 'SIGKILL'))
   return child
+}
+
+function signalGroup(child, signal) {
+  try {
+    process.kill(-child.pid, signal)
+  } catch {
+    // already gone
+  }
+}
+
+/** Stops a child started by startChild (SIGTERM to its group, SIGKILL after `graceMs`). */
+export function stopChild(child, graceMs = 10_000) {
+  return new Promise((resolve) => {
+    if (child.exitCode !== null || child.signalCode !== null) return resolve()
+    const force = setTimeout(() => signalGroup(child, 'SIGKILL'), graceMs)
+    child.once('exit', () => {
+      clearTimeout(force)
+      signalGroup(child, 'SIGKILL')
+      resolve()
+    })
+    signalGroup(child, 'SIGTERM')
+  })
 }
 
 /** Polls an HTTP URL until it answers (any status) or the timeout passes. */
