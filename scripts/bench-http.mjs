@@ -63,7 +63,7 @@ async function rankVersusTrivial(cookie) {
   console.log(`  rank / trivial throughput: ${(rank.requests.average / trivial.requests.average).toFixed(2)} same body, ${(varied.requests.average / trivial.requests.average).toFixed(2)} every body new (target >= 0.50)`)
 }
 
-async function addReadingLatency(cookie) {
+async function addReadingLatency(cookie, thinkMs) {
   const headers = { cookie, 'content-type': 'application/json' }
   const units = await (await fetch(`${BASE}/api/units`, { headers })).json()
   const unit = units.find((u) => u.kind === 'cascade')
@@ -78,6 +78,7 @@ async function addReadingLatency(cookie) {
   const started = performance.now()
   await Promise.all(cases.map(async (id, t) => {
     for (let k = 0; k < PER_TECH; k++) {
+      if (thinkMs) await new Promise((r) => setTimeout(r, thinkMs * (0.5 + Math.random())))
       const body = JSON.stringify({ readings: [{ quantity: 'cabinetTemperature', value: -40 - ((k + t) % 30), unit: 'C' }] })
       const t0 = performance.now()
       const res = await fetch(`${BASE}/api/cases/${id}/readings`, { method: 'POST', headers, body })
@@ -88,7 +89,7 @@ async function addReadingLatency(cookie) {
   }))
   const seconds = (performance.now() - started) / 1000
   latencies.sort((a, b) => a - b)
-  console.log(`add reading and re-rank: 20 technicians x ${PER_TECH} readings, each on its own open case`)
+  console.log(`add reading and re-rank: 20 technicians x ${PER_TECH} readings, each on its own open case, ${thinkMs ? `about ${thinkMs} ms between a technician's readings` : 'no pause between readings (saturation)'}`)
   console.log(`  p50 ${pct(latencies, 50).toFixed(1)} ms   p95 ${pct(latencies, 95).toFixed(1)} ms (target <= 100 ms)   ${(latencies.length / seconds).toFixed(0)} req/s   failures ${failures}`)
   return cases[0]
 }
@@ -130,5 +131,6 @@ async function casePageInBrowser(cookie, caseId) {
 
 const cookie = await signIn('tech@rimecase.demo')
 await rankVersusTrivial(cookie)
-const caseId = await addReadingLatency(cookie)
+const caseId = await addReadingLatency(cookie, 0)
+await addReadingLatency(cookie, 500)
 await casePageInBrowser(cookie, caseId)
