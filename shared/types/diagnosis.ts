@@ -253,3 +253,12 @@ export interface RankResponse {
   missingReadings: MissingReading[]
   knowledgeBaseVersion: { id: string | number; label: string; status: 'draft' | 'published' }
 }
+
+/** The knowledge base's track record on closed cases (`GET /api/diagnosis/agreement`). */
+export interface RankingAgreement {
+  closedCases: number
+  topMatches: number
+  topThreeMatches: number
+  topShare: number | null
+  topThreeShare: number | null
+}

@@ -225,3 +225,14 @@ export async function unitTransactions(organisationId: number, unitId: number): 
   const rows = await RefrigerantTransaction.findAll({ where: { organisationId, unitId }, order: [['at', 'DESC']] })
   return rows.map((t) => ({ id: t.id, stage: t.stage as RefrigerantTransactionDto['stage'], refrigerant: t.refrigerant, grams: t.grams, direction: t.direction, cylinder: t.cylinder, at: t.at.toISOString() }))
 }
+
+/** Confirmed causes and the top of the last ranking of the organisation's latest closed cases. */
+export async function closedCaseRankings(organisationId: number, limit = 500) {
+  const rows = await ServiceCase.sequelize!.query<{ confirmed: { cause: string; stage?: string }[]; ranked: { cause: string; stage?: string }[] | null }>(
+    `SELECT confirmed_causes AS confirmed, jsonb_path_query_array(ranking, '$.causes[0 to 2]') AS ranked
+       FROM cases WHERE organisation_id = :organisationId AND status = 'closed' AND ranking IS NOT NULL
+      ORDER BY closed_at DESC LIMIT :limit`,
+    { replacements: { organisationId, limit }, type: QueryTypes.SELECT },
+  )
+  return rows.map((r) => ({ confirmed: r.confirmed, ranked: r.ranked ?? [] }))
+}

@@ -94,3 +94,15 @@ describe('POST /api/diagnosis/rank', () => {
     expect(vocabulary.units.pressure).toEqual(['kPa', 'kPag', 'bar', 'barg', 'psia', 'psig', 'MPa'])
   })
 })
+
+describe('GET /api/diagnosis/agreement', () => {
+  it('reports how often the closed cases ranking had the confirmed cause first and in the top three', async () => {
+    const engineer = await signedIn(DEMO.engineer)
+    const res = await engineer.get('/api/diagnosis/agreement')
+    expect(res.status).toBe(200)
+    expect(res.body.closedCases).toBeGreaterThanOrEqual(30)
+    expect(res.body.topThreeMatches).toBeGreaterThanOrEqual(res.body.topMatches)
+    expect(res.body.topShare).toBeCloseTo(res.body.topMatches / res.body.closedCases, 9)
+    expect((await new ApiClient().get('/api/diagnosis/agreement')).status).toBe(401)
+  })
+})
