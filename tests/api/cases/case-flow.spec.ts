@@ -104,3 +104,23 @@ describe('case record through the contract routes', () => {
     expect((await tech.get('/api/cases?status=bogus')).status).toBe(400)
   })
 })
+
+describe('case list filters', () => {
+  it('filters by technician, confirmed cause and dates, and lists only the organisation\'s people', async () => {
+    const engineer = await signedIn(DEMO.engineer)
+    const people = (await engineer.get('/api/people')).body as { id: number; name: string }[]
+    expect(people.length).toBeGreaterThanOrEqual(4)
+    expect(JSON.stringify(people)).not.toContain('@')
+    const tech = people.find((p) => (p as { role?: string }).role === 'technician')!
+    const byTech = (await engineer.get(`/api/cases?technicianId=${tech.id}&pageSize=100`)).body
+    expect(byTech.total).toBeGreaterThan(0)
+    expect(byTech.items.every((c: { technician: string }) => c.technician === tech.name)).toBe(true)
+    const leaks = (await engineer.get('/api/cases?cause=refrigerant-leak&status=closed&pageSize=100')).body
+    expect(leaks.total).toBeGreaterThan(0)
+    expect(leaks.items.every((c: { confirmedCauses: { cause: string }[] }) => c.confirmedCauses.some((k) => k.cause === 'refrigerant-leak'))).toBe(true)
+    const future = (await engineer.get('/api/cases?from=2099-01-01')).body
+    expect(future.total).toBe(0)
+    const otherPeople = (await (await signedIn(DEMO.otherTech)).get('/api/people')).body as { name: string }[]
+    expect(otherPeople.map((p) => p.name)).not.toContain(tech.name)
+  })
+})
