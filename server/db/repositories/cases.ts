@@ -118,14 +118,15 @@ export function emailDto(e: OutboundEmail): EmailDto {
  * (no model instances).
  */
 export async function findCase(organisationId: number, id: number, knownUnit?: UnitDto): Promise<CaseDto | null> {
-  const c = await ServiceCase.findOne({ where: { id, organisationId } })
+  // Read as plain rows (no model instances): this runs after every step a technician takes.
+  const c = (await ServiceCase.findOne({ where: { id, organisationId }, raw: true })) as ServiceCase | null
   if (!c) return null
   const [unit, events, transactions, uploads, emails, users] = await Promise.all([
     knownUnit && knownUnit.id === c.unitId ? knownUnit : findUnit(organisationId, c.unitId),
     CaseEvent.findAll({ where: { caseId: id }, order: [['id', 'ASC']], raw: true }) as unknown as Promise<EventRow[]>,
-    RefrigerantTransaction.findAll({ where: { caseId: id }, order: [['id', 'ASC']] }),
-    Upload.findAll({ where: { caseId: id, organisationId }, order: [['id', 'ASC']] }),
-    OutboundEmail.findAll({ where: { caseId: id, organisationId }, order: [['id', 'ASC']] }),
+    RefrigerantTransaction.findAll({ where: { caseId: id }, order: [['id', 'ASC']], raw: true }),
+    Upload.findAll({ where: { caseId: id, organisationId }, order: [['id', 'ASC']], raw: true }),
+    OutboundEmail.findAll({ where: { caseId: id, organisationId }, order: [['id', 'ASC']], raw: true }),
     User.findAll({ where: { organisationId }, attributes: ['id', 'name'], raw: true }),
   ])
   if (!unit) return null
