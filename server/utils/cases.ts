@@ -23,6 +23,18 @@ export async function cachedUnit(organisationId: number, unitId: number): Promis
   return unit
 }
 
+// A case never moves to another unit, so which unit it belongs to is remembered for good.
+const caseUnits = new Map<string, number>()
+async function unitOfCase(organisationId: number, caseId: number): Promise<number | null> {
+  const key = `${organisationId}|${caseId}`
+  const known = caseUnits.get(key)
+  if (known !== undefined) return known
+  const unitId = await caseUnitId(organisationId, caseId)
+  if (caseUnits.size > 20_000) caseUnits.clear()
+  if (unitId !== null) caseUnits.set(key, unitId)
+  return unitId
+}
+
 /** Forgets a cached unit after it was edited. */
 export function forgetCachedUnit(organisationId: number, unitId: number) {
   units.delete(`${organisationId}|${unitId}`)
@@ -54,7 +66,7 @@ export async function changeCase(
 ): Promise<CaseDto> {
   // Everything that needs the database besides the locked row is loaded first, so a request never
   // holds one pooled connection while waiting for another.
-  const unitId = await caseUnitId(user.organisationId, id)
+  const unitId = await unitOfCase(user.organisationId, id)
   if (unitId === null) throw notFound('Case')
   const unit = await cachedUnit(user.organisationId, unitId)
   if (!unit) throw notFound('Unit')

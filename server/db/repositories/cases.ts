@@ -94,10 +94,6 @@ export async function insertTransactions(
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null)
 
-type EventRow = Pick<CaseEvent, 'id' | 'at' | 'type' | 'byUserId' | 'payload'>
-function eventDto(e: EventRow, names: Map<number, string>): CaseEventDto {
-  return { ...e.payload, id: Number(e.id), at: e.at.toISOString(), type: e.type as CaseEventDto['type'], by: e.byUserId ? names.get(e.byUserId) ?? null : null, byUserId: e.byUserId }
-}
 
 /** An upload row as the API shows it, with the URLs that serve its file and preview. */
 export function uploadDto(u: Upload): UploadDto {
@@ -112,45 +108,68 @@ export function emailDto(e: OutboundEmail): EmailDto {
   return { id: e.id, toAddress: e.toAddress, subject: e.subject, status: e.status, attempts: e.attempts, lastError: e.lastError, sentAt: iso(e.sentAt) }
 }
 
+// One round trip for the whole record: the case row, its timeline with people's names, its
+// refrigerant transactions, uploads and e-mails, each aggregated as JSON. This runs after every
+// step a technician takes, so it is kept to a single statement.
+const CASE_RECORD_SQL = `
+SELECT c.id, c.unit_id, c.status, c.complaint, c.symptoms, c.readings, c.test_results, c.ranking, c.lock_version,
+       c.opened_at, c.closed_at, c.notes, c.closure, t.name AS technician,
+       (SELECT coalesce(json_agg(json_build_object('id', e.id, 'at', e.at, 'type', e.type, 'byUserId', e.by_user_id, 'by', u.name, 'payload', e.payload) ORDER BY e.id), '[]')
+          FROM case_events e LEFT JOIN users u ON u.id = e.by_user_id WHERE e.case_id = c.id) AS events,
+       (SELECT coalesce(json_agg(json_build_object('id', r.id, 'stage', r.stage, 'refrigerant', r.refrigerant, 'grams', r.grams, 'direction', r.direction, 'cylinder', r.cylinder, 'at', r.at) ORDER BY r.id), '[]')
+          FROM refrigerant_transactions r WHERE r.case_id = c.id) AS transactions,
+       (SELECT coalesce(json_agg(json_build_object('id', f.id, 'mime', f.mime, 'bytes', f.bytes, 'originalName', f.original_name, 'purpose', f.purpose, 'thumbKey', f.thumb_key, 'createdAt', f.created_at) ORDER BY f.id), '[]')
+          FROM uploads f WHERE f.case_id = c.id AND f.organisation_id = c.organisation_id) AS uploads,
+       (SELECT coalesce(json_agg(json_build_object('id', m.id, 'toAddress', m.to_address, 'subject', m.subject, 'status', m.status, 'attempts', m.attempts, 'lastError', m.last_error, 'sentAt', m.sent_at) ORDER BY m.id), '[]')
+          FROM outbound_emails m WHERE m.case_id = c.id AND m.organisation_id = c.organisation_id) AS emails
+  FROM cases c LEFT JOIN users t ON t.id = c.technician_id
+ WHERE c.id = :id AND c.organisation_id = :organisationId`
+
+interface CaseRecordRow {
+  id: number; unit_id: number; status: CaseDto['status']; complaint: string; symptoms: Symptom[]; readings: CaseReading[]
+  test_results: CaseTestResult[]; ranking: RankResponse | null; lock_version: number; opened_at: Date; closed_at: Date | null
+  notes: string; closure: CaseClosure | null; technician: string | null
+  events: { id: number; at: string; type: CaseEventDto['type']; byUserId: number | null; by: string | null; payload: Record<string, unknown> }[]
+  transactions: (Omit<RefrigerantTransactionDto, 'at'> & { at: string })[]
+  uploads: { id: number; mime: string; bytes: number; originalName: string; purpose: string; thumbKey: string | null; createdAt: string }[]
+  emails: (Omit<EmailDto, 'sentAt'> & { sentAt: string | null })[]
+}
+
+// Timestamps inside JSON come back as PostgreSQL text; the API speaks ISO 8601 in UTC.
+const isoText = (t: string | null) => (t ? new Date(t).toISOString() : null)
+
 /**
  * The full case record of the organisation, or null. `knownUnit` saves a query when the caller
- * already loaded the case's unit. The timeline grows with every step, so its rows are read raw
- * (no model instances).
+ * already loaded the case's unit.
  */
 export async function findCase(organisationId: number, id: number, knownUnit?: UnitDto): Promise<CaseDto | null> {
-  // Read as plain rows (no model instances): this runs after every step a technician takes.
-  const c = (await ServiceCase.findOne({ where: { id, organisationId }, raw: true })) as ServiceCase | null
+  const [c] = await ServiceCase.sequelize!.query<CaseRecordRow>(CASE_RECORD_SQL, { replacements: { id, organisationId }, type: QueryTypes.SELECT })
   if (!c) return null
-  const [unit, events, transactions, uploads, emails, users] = await Promise.all([
-    knownUnit && knownUnit.id === c.unitId ? knownUnit : findUnit(organisationId, c.unitId),
-    CaseEvent.findAll({ where: { caseId: id }, order: [['id', 'ASC']], raw: true }) as unknown as Promise<EventRow[]>,
-    RefrigerantTransaction.findAll({ where: { caseId: id }, order: [['id', 'ASC']], raw: true }),
-    Upload.findAll({ where: { caseId: id, organisationId }, order: [['id', 'ASC']], raw: true }),
-    OutboundEmail.findAll({ where: { caseId: id, organisationId }, order: [['id', 'ASC']], raw: true }),
-    User.findAll({ where: { organisationId }, attributes: ['id', 'name'], raw: true }),
-  ])
+  const unit = knownUnit && knownUnit.id === c.unit_id ? knownUnit : await findUnit(organisationId, c.unit_id)
   if (!unit) return null
-  const names = new Map(users.map((u) => [u.id, u.name]))
   return {
     id: c.id,
-    unitId: c.unitId,
+    unitId: c.unit_id,
     status: c.status,
     complaint: c.complaint,
-    symptoms: c.symptoms as Symptom[],
-    readings: c.readings as CaseReading[],
-    testResults: c.testResults as CaseTestResult[],
-    ranking: c.ranking as RankResponse | null,
-    events: events.map((e) => eventDto(e, names)),
-    version: c.lockVersion,
-    technician: c.technicianId ? names.get(c.technicianId) ?? null : null,
-    openedAt: c.openedAt.toISOString(),
-    closedAt: iso(c.closedAt),
+    symptoms: c.symptoms,
+    readings: c.readings,
+    testResults: c.test_results,
+    ranking: c.ranking,
+    events: c.events.map((e) => ({ ...e.payload, id: Number(e.id), at: isoText(e.at)!, type: e.type, by: e.by, byUserId: e.byUserId })),
+    version: c.lock_version,
+    technician: c.technician,
+    openedAt: c.opened_at.toISOString(),
+    closedAt: iso(c.closed_at),
     notes: c.notes,
-    closure: c.closure as CaseClosure | null,
+    closure: c.closure,
     unit,
-    transactions: transactions.map((t) => ({ id: t.id, stage: t.stage as RefrigerantTransactionDto['stage'], refrigerant: t.refrigerant, grams: t.grams, direction: t.direction, cylinder: t.cylinder, at: t.at.toISOString() })),
-    uploads: uploads.map(uploadDto),
-    emails: emails.map(emailDto),
+    transactions: c.transactions.map((t) => ({ ...t, at: isoText(t.at)! })),
+    uploads: c.uploads.map((u) => ({
+      id: u.id, mime: u.mime, bytes: u.bytes, originalName: u.originalName, purpose: u.purpose,
+      url: `/api/uploads/${u.id}`, thumbUrl: u.thumbKey ? `/api/uploads/${u.id}?thumb=1` : null, createdAt: isoText(u.createdAt)!,
+    })),
+    emails: c.emails.map((m) => ({ ...m, sentAt: isoText(m.sentAt) })),
   }
 }
 
