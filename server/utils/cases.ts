@@ -1,7 +1,7 @@
 import type { H3Event } from 'h3'
 import type { Transaction } from 'sequelize'
 import type { User } from '#auth-utils'
-import { appendEvents, caseUnitId, findCase, lockCase, saveCase, type LockedCase } from '#server/db/repositories/cases'
+import { appendEvents, caseUnitId, commitIfUnchanged, findCase, lockCase, readCaseState, saveCase, type LockedCase } from '#server/db/repositories/cases'
 import { findUnit } from '#server/db/repositories/equipment'
 import { assertWritable, rankingEvents, rankRequestFor, type NewEvent } from '#server/domain/cases/case-record'
 import type { CaseDto } from '#shared/types/cases'
@@ -54,38 +54,59 @@ export interface CaseChange {
 }
 
 /**
- * Applies one change to an open case under a row lock: refuses closed cases and stale versions
- * (409), appends the change's events, re-ranks when asked, and returns the updated record.
+ * Applies one change to an open case: refuses closed cases and stale versions (409), appends the
+ * change's events, re-ranks when asked, and returns the updated record.
+ *
+ * Readings, outcomes, symptoms and notes commit optimistically in one statement guarded by the case
+ * version; if another change landed in between, the step is planned again on the fresh state (they
+ * only append, so nothing is lost) unless the caller sent the version it saw, which then gets 409.
+ * Closing (`locked`) also writes other tables, so it takes a row lock in a transaction instead.
  */
 export async function changeCase(
   event: H3Event,
   user: User,
   id: number,
   expectedVersion: number | undefined,
-  plan: (current: LockedCase, unit: UnitDto, transaction: Transaction) => CaseChange | Promise<CaseChange>,
+  plan: (current: LockedCase, unit: UnitDto, transaction?: Transaction) => CaseChange | Promise<CaseChange>,
+  options: { locked?: boolean } = {},
 ): Promise<CaseDto> {
-  // Everything that needs the database besides the locked row is loaded first, so a request never
+  // Everything that needs the database besides the case row is loaded first, so a request never
   // holds one pooled connection while waiting for another.
   const unitId = await unitOfCase(user.organisationId, id)
   if (unitId === null) throw notFound('Case')
   const unit = await cachedUnit(user.organisationId, unitId)
   if (!unit) throw notFound('Unit')
   const rank = await prepareRanker(user.organisationId, { equipmentClass: unit.equipmentClass })
-  await useDb().transaction(async (transaction) => {
-    const current = await lockCase(user.organisationId, id, transaction)
-    if (!current) throw notFound('Case')
-    await withDomainErrors(async () => {
-      assertWritable(current, expectedVersion)
-      const { changes, events, rerank } = await plan(current, unit, transaction)
-      let ranking: RankResponse | undefined
-      if (rerank) {
-        const next = { ...current, ...changes }
-        ranking = await rank(rankRequestFor(unit, next))
-        events.push(...rankingEvents(current.ranking, ranking))
-      }
-      await appendEvents(id, user.id, events, transaction)
-      await saveCase(id, ranking ? { ...changes, ranking } : changes, transaction)
+
+  const planned = async (current: LockedCase, transaction?: Transaction) => {
+    assertWritable(current, expectedVersion)
+    const { changes, events, rerank } = await plan(current, unit, transaction)
+    if (!rerank) return { changes, events }
+    const ranking = await rank(rankRequestFor(unit, { ...current, ...changes }))
+    return { changes: { ...changes, ranking }, events: [...events, ...rankingEvents(current.ranking, ranking)] }
+  }
+
+  if (options.locked) {
+    await useDb().transaction(async (transaction) => {
+      const current = await lockCase(user.organisationId, id, transaction)
+      if (!current) throw notFound('Case')
+      await withDomainErrors(async () => {
+        const { changes, events } = await planned(current, transaction)
+        await appendEvents(id, user.id, events, transaction)
+        await saveCase(id, changes, transaction)
+      })
     })
-  })
-  return caseOr404(user, id, unit)
+    return caseOr404(user, id, unit)
+  }
+
+  for (let attempt = 0; attempt < 8; attempt++) {
+    const current = await readCaseState(user.organisationId, id)
+    if (!current) throw notFound('Case')
+    const committed = await withDomainErrors(async () => {
+      const { changes, events } = await planned(current)
+      return commitIfUnchanged(id, current.lockVersion, changes, user.id, events)
+    })
+    if (committed) return caseOr404(user, id, unit)
+  }
+  throw createError({ status: 409, statusText: 'Conflict', message: 'This case is being changed by others right now. Reload it and enter your change again.' })
 }

@@ -11,6 +11,7 @@ export interface LockedCase extends CaseState {
   organisationId: number
   unitId: number
   ranking: RankResponse | null
+  notes: string
 }
 
 /** Opens a case on a unit of the organisation; returns its id. */
@@ -54,6 +55,18 @@ export async function lockCase(organisationId: number, id: number, transaction: 
     id: c.id, organisationId: c.organisationId, unitId: c.unitId, status: c.status, lockVersion: c.lockVersion,
     symptoms: c.symptoms as Symptom[], readings: c.readings as CaseReading[], testResults: c.testResults as CaseTestResult[],
     ranking: c.ranking as RankResponse | null,
+    notes: c.notes,
+  }
+}
+
+/** The current state of a case of the organisation, without locking it (null if absent). */
+export async function readCaseState(organisationId: number, id: number): Promise<LockedCase | null> {
+  const c = (await ServiceCase.findOne({ where: { id, organisationId }, raw: true })) as ServiceCase | null
+  if (!c) return null
+  return {
+    id: c.id, organisationId: c.organisationId, unitId: c.unitId, status: c.status, lockVersion: c.lockVersion,
+    symptoms: c.symptoms as Symptom[], readings: c.readings as CaseReading[], testResults: c.testResults as CaseTestResult[],
+    ranking: c.ranking as RankResponse | null, notes: c.notes,
   }
 }
 
@@ -63,21 +76,49 @@ export async function saveCase(
   changes: Partial<{ symptoms: Symptom[]; readings: CaseReading[]; testResults: CaseTestResult[]; ranking: RankResponse; notes: string; status: 'closed'; closure: CaseClosure; confirmedCauses: CaseClosure['confirmedCauses']; closedAt: Date }>,
   transaction: Transaction,
 ) {
-  // A plain UPDATE: the JSON columns are sent as JSON text, and the version goes up in the same statement.
-  const columns: Record<string, string> = {
-    symptoms: 'symptoms', readings: 'readings', testResults: 'test_results', ranking: 'ranking', notes: 'notes', status: 'status',
-    closure: 'closure', confirmedCauses: 'confirmed_causes', closedAt: 'closed_at',
-  }
-  const json = new Set(['symptoms', 'readings', 'testResults', 'ranking', 'closure', 'confirmedCauses'])
   const bind: unknown[] = [id]
+  const sets = setClauses(changes, bind)
+  await ServiceCase.sequelize!.query(`UPDATE cases SET ${sets} WHERE id = $1`, { bind, transaction })
+}
+
+type CaseChanges = Parameters<typeof saveCase>[1]
+const COLUMNS: Record<string, string> = {
+  symptoms: 'symptoms', readings: 'readings', testResults: 'test_results', ranking: 'ranking', notes: 'notes', status: 'status',
+  closure: 'closure', confirmedCauses: 'confirmed_causes', closedAt: 'closed_at',
+}
+const JSON_COLUMNS = new Set(['symptoms', 'readings', 'testResults', 'ranking', 'closure', 'confirmedCauses'])
+
+/** SET clauses of a plain UPDATE: JSON columns go as JSON text, and the version goes up with them. */
+function setClauses(changes: CaseChanges, bind: unknown[]): string {
   const sets = Object.entries(changes).map(([key, value]) => {
-    bind.push(json.has(key) ? JSON.stringify(value) : value)
-    return `${columns[key]} = $${bind.length}${json.has(key) ? '::jsonb' : ''}`
+    bind.push(JSON_COLUMNS.has(key) ? JSON.stringify(value) : value)
+    return `${COLUMNS[key]} = $${bind.length}${JSON_COLUMNS.has(key) ? '::jsonb' : ''}`
   })
-  await ServiceCase.sequelize!.query(
-    `UPDATE cases SET ${[...sets, 'lock_version = lock_version + 1', 'updated_at = now()'].join(', ')} WHERE id = $1`,
-    { bind, transaction },
+  return [...sets, 'lock_version = lock_version + 1', 'updated_at = now()'].join(', ')
+}
+
+/**
+ * Saves a change and appends its events in one statement, only if the case is still open and at
+ * `lockVersion` (optimistic concurrency). Returns false when someone changed it first.
+ */
+export async function commitIfUnchanged(id: number, lockVersion: number, changes: CaseChanges, byUserId: number | null, events: NewEvent[]): Promise<boolean> {
+  if (!events.length) throw new Error('A case change always records at least one event')
+  const bind: unknown[] = [id, lockVersion]
+  const sets = setClauses(changes, bind)
+  const now = new Date()
+  const rows = events.map((e) => {
+    bind.push(byUserId, e.type, JSON.stringify(e.payload), now)
+    const n = bind.length
+    return `($${n - 3}::int, $${n - 2}::text, $${n - 1}::jsonb, $${n}::timestamptz)`
+  })
+  const [inserted] = await ServiceCase.sequelize!.query(
+    `WITH upd AS (UPDATE cases SET ${sets} WHERE id = $1 AND lock_version = $2 AND status = 'open' RETURNING id)
+     INSERT INTO case_events (case_id, by_user_id, type, payload, at)
+     SELECT upd.id, v.by_user_id, v.type, v.payload, v.at FROM upd, (VALUES ${rows.join(', ')}) AS v(by_user_id, type, payload, at)
+     RETURNING case_events.id`,
+    { bind },
   )
+  return (inserted as unknown[]).length > 0
 }
 
 /** Records refrigerant added to or recovered from a unit's stages. */

@@ -72,6 +72,19 @@ describe('case record through the contract routes', () => {
     expect((await tech.get(`/api/cases/${opened.id}`)).body.readings).toHaveLength(1)
   })
 
+  it('keeps every reading when several arrive at once without a version (nothing is lost)', async () => {
+    const tech = await signedIn(DEMO.tech)
+    const unit = await cascadeUnitWith(tech, 'R170')
+    const opened = (await tech.post('/api/cases', { unitId: unit.id, complaint: 'Two gauges read out at once' })).body
+    const posts = Array.from({ length: 6 }, (_, i) => tech.post(`/api/cases/${opened.id}/readings`, { readings: [{ quantity: 'cabinetTemperature', value: -50 - i, unit: 'C' }] }))
+    const results = await Promise.all(posts)
+    expect(results.map((r) => r.status)).toEqual([200, 200, 200, 200, 200, 200])
+    const record = (await tech.get(`/api/cases/${opened.id}`)).body
+    expect(record.readings.map((r: { value: number }) => r.value).sort()).toEqual([-50, -51, -52, -53, -54, -55].sort())
+    expect(record.events.filter((e: { type: string }) => e.type === 'reading-entered')).toHaveLength(6)
+    expect(record.version).toBe(opened.version + 6)
+  })
+
   it('refuses bad input with 400 and another organisation with 404', async () => {
     const tech = await signedIn(DEMO.tech)
     const other = await signedIn(DEMO.otherTech)

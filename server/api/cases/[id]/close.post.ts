@@ -12,13 +12,13 @@ export default defineEventHandler(async (event) => {
     await insertTransactions(
       { organisationId: user.organisationId, caseId: id, unitId: unit.id, byUserId: user.id },
       closure.refrigerantTransactions,
-      transaction,
+      transaction!,
     )
     return {
       changes: { status: 'closed', closure, confirmedCauses: closure.confirmedCauses, closedAt: new Date() },
       events: [{ type: 'case-closed', payload: { ...closure } }],
     }
-  })
+  }, { locked: true })
   invalidateDiagnosisCache(user.organisationId)
   await queueServiceReport(user, closed)
   return caseOr404(user, id)

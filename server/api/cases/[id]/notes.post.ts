@@ -5,8 +5,7 @@ export default defineEventHandler(async (event) => {
   const user = await requireUser(event, 'cases:work')
   const { id } = await readParamsAs(event, IdParamsSchema)
   const { text, version } = await readBodyAs(event, NoteSchema)
-  const current = await caseOr404(user, id)
-  return changeCase(event, user, id, version, () => ({
+  return changeCase(event, user, id, version, (current) => ({
     changes: { notes: current.notes ? `${current.notes}\n\n${text}` : text },
     events: [{ type: 'note', payload: { text } }],
   }))
