@@ -12,6 +12,9 @@ import { rankCauses, resolveTestResults, type RankOptions } from './ranking'
 
 export { RankInputError, type LearnedCount, type RankOptions } from './ranking'
 
+/** Proposals beyond the first few are never tried in practice; the list stops here. */
+export const MAX_PROPOSED_TESTS = 8
+
 export async function rankDiagnosis(kb: KnowledgeBase, request: RankRequest, options: RankOptions = {}): Promise<RankResponse> {
   const kind = request.unit.kind
   const done = resolveTestResults(kb, kind, request.testResults)
@@ -29,7 +32,7 @@ export async function rankDiagnosis(kb: KnowledgeBase, request: RankRequest, opt
   const stages = new Set(request.unit.stages.map((s) => s.stage))
   return {
     causes: ranking.causes,
-    tests,
+    tests: tests.slice(0, MAX_PROPOSED_TESTS),
     derived: derived.derived,
     warnings: derived.warnings,
     priorNote: ranking.priorNote,
