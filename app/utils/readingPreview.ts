@@ -17,18 +17,18 @@ export function previewReading(quantity: Quantity, value: number, unit: string, 
   try {
     if (quantity.endsWith('Pressure')) {
       const kpa = toKpaAbs(value, unit, ctx.atmosphericKpa)
-      if (!ctx.refrigerant || !isDesignation(ctx.refrigerant)) return `${formatNumber(kpa, 0)} kPa abs`
+      if (!ctx.refrigerant || !isDesignation(ctx.refrigerant)) return `${formatFigure(kpa, 0)} kPa abs`
       const sat = saturationTemperature(ctx.refrigerant, kpa)
       const glide = Math.abs(sat.dewC - sat.bubbleC) > 0.05
       const temp = quantity === 'dischargePressure' && glide ? sat.bubbleC : sat.dewC
-      return `${formatNumber(kpa, 0)} kPa abs → ${formatNumber(temp)} °C sat.${glide ? (quantity === 'dischargePressure' ? ' (bubble)' : ' (dew)') : ''}`
+      return `${formatFigure(kpa, 0)} kPa abs → ${formatFigure(temp, 1)} °C sat.${glide ? (quantity === 'dischargePressure' ? ' (bubble)' : ' (dew)') : ''}`
     }
     if (unit === 'C' || unit === 'F' || unit === 'K') {
       const c = toCelsius(value, unit)
       const d = ctx.refrigerant
-      if (d && isDesignation(d) && quantity === 'suctionTemperature' && ctx.suctionKpa) return `${formatNumber(c)} °C → superheat ${formatNumber(superheatK(d, ctx.suctionKpa, c))} K`
-      if (d && isDesignation(d) && quantity === 'liquidLineTemperature' && ctx.dischargeKpa) return `${formatNumber(c)} °C → subcooling ${formatNumber(subcoolingK(d, ctx.dischargeKpa, c))} K`
-      return unit === 'C' ? '' : `${formatNumber(c)} °C`
+      if (d && isDesignation(d) && quantity === 'suctionTemperature' && ctx.suctionKpa) return `${formatFigure(c, 1)} °C → superheat ${formatFigure(superheatK(d, ctx.suctionKpa, c), 1)} K`
+      if (d && isDesignation(d) && quantity === 'liquidLineTemperature' && ctx.dischargeKpa) return `${formatFigure(c, 1)} °C → subcooling ${formatFigure(subcoolingK(d, ctx.dischargeKpa, c), 1)} K`
+      return unit === 'C' ? '' : `${formatFigure(c, 1)} °C`
     }
   } catch (error) {
     return error instanceof Error ? error.message : 'Outside the refrigerant range'

@@ -41,12 +41,6 @@ export const SYMPTOM_LABELS: Record<Symptom, string> = {
 
 export const UNIT_SYMBOLS: Record<string, string> = { C: '°C', F: '°F', K: 'K', A: 'A', min: 'min', bool: '' }
 
-/** "−12.5" with a real minus sign and fixed decimals. */
-export function formatNumber(n: number, digits = 1): string {
-  const v = Math.abs(n) < 10 ** -(digits + 1) ? 0 : n
-  return v.toFixed(digits).replace('-', '−')
-}
-
 /** A unit word as shown beside a number ("psig", "°C"). */
 export function unitSymbol(unit: string): string {
   return UNIT_SYMBOLS[unit] ?? unit

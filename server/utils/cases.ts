@@ -1,7 +1,7 @@
 import type { H3Event } from 'h3'
 import type { Transaction } from 'sequelize'
 import type { User } from '#auth-utils'
-import { appendEvents, caseUnitId, commitIfUnchanged, findCase, lockCase, readCaseState, saveCase, type LockedCase } from '#server/db/repositories/cases'
+import { appendEvents, caseUnitId, commitIfUnchanged, findCase, readCaseState, saveCase, type LockedCase } from '#server/db/repositories/cases'
 import { findUnit } from '#server/db/repositories/equipment'
 import { assertWritable, rankingEvents, rankRequestFor, type NewEvent } from '#server/domain/cases/case-record'
 import type { CaseDto } from '#shared/types/cases'
@@ -88,7 +88,7 @@ export async function changeCase(
 
   if (options.locked) {
     await useDb().transaction(async (transaction) => {
-      const current = await lockCase(user.organisationId, id, transaction)
+      const current = await readCaseState(user.organisationId, id, transaction)
       if (!current) throw notFound('Case')
       await withDomainErrors(async () => {
         const { changes, events } = await planned(current, transaction)

@@ -5,7 +5,7 @@ import type { H3Event } from 'h3'
 import { fileTypeFromBuffer } from 'file-type'
 import sharp from 'sharp'
 import type { User } from '#auth-utils'
-import { appendEvents, lockCase } from '#server/db/repositories/cases'
+import { appendEvents, readCaseState } from '#server/db/repositories/cases'
 import { findUploadFile, insertUpload } from '#server/db/repositories/uploads'
 import { BadInputError, InvalidStateError, NotFoundError, TooLargeError } from '#server/domain/errors'
 import { contentDisposition } from '#server/domain/files/content-disposition'
@@ -148,7 +148,7 @@ export function saveUpload(user: User, target: { caseId: number } | { unitId: nu
       return await useDb().transaction(async (transaction) => {
         const caseId = 'caseId' in target ? target.caseId : null
         if (caseId !== null) {
-          const current = await lockCase(user.organisationId, caseId, transaction)
+          const current = await readCaseState(user.organisationId, caseId, transaction)
           if (!current) throw new NotFoundError('Case not found')
           assertCaseTakesUploads(current.status)
         }

@@ -47,21 +47,14 @@ export async function caseUnitId(organisationId: number, id: number): Promise<nu
   return c?.unitId ?? null
 }
 
-/** Loads a case of the organisation and locks its row until the transaction ends (null if absent). */
-export async function lockCase(organisationId: number, id: number, transaction: Transaction): Promise<LockedCase | null> {
-  const c = (await ServiceCase.findOne({ where: { id, organisationId }, transaction, lock: transaction.LOCK.UPDATE, raw: true })) as ServiceCase | null
-  if (!c) return null
-  return {
-    id: c.id, organisationId: c.organisationId, unitId: c.unitId, status: c.status, lockVersion: c.lockVersion,
-    symptoms: c.symptoms as Symptom[], readings: c.readings as CaseReading[], testResults: c.testResults as CaseTestResult[],
-    ranking: c.ranking as RankResponse | null,
-    notes: c.notes,
-  }
-}
-
-/** The current state of a case of the organisation, without locking it (null if absent). */
-export async function readCaseState(organisationId: number, id: number): Promise<LockedCase | null> {
-  const c = (await ServiceCase.findOne({ where: { id, organisationId }, raw: true })) as ServiceCase | null
+/**
+ * The current state of a case of the organisation (null if absent). With a transaction it also
+ * locks the row until that transaction ends.
+ */
+export async function readCaseState(organisationId: number, id: number, lockIn?: Transaction): Promise<LockedCase | null> {
+  const c = (await ServiceCase.findOne({
+    where: { id, organisationId }, raw: true, ...(lockIn ? { transaction: lockIn, lock: lockIn.LOCK.UPDATE } : {}),
+  })) as ServiceCase | null
   if (!c) return null
   return {
     id: c.id, organisationId: c.organisationId, unitId: c.unitId, status: c.status, lockVersion: c.lockVersion,
