@@ -67,7 +67,7 @@ export interface DutiesResult {
 interface Ctx {
   unit: DutyUnit
   today: number
-  push: (d: Omit<Duty, 'unitId' | 'unitName' | 'daysLeft' | 'overdue'> & { dueDay: number }) => void
+  push: (d: Omit<Duty, 'unitId' | 'unitName' | 'dueBy' | 'daysLeft' | 'overdue'> & { dueDay: number }) => void
 }
 
 const latest = (days: number[]) => (days.length ? Math.max(...days) : null)
