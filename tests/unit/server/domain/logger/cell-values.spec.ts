@@ -1,0 +1,73 @@
+import { describe, expect, it } from 'vitest'
+import { guessTimeFormat, readNumber, readState, readTime } from '#server/domain/logger/cell-values'
+
+describe('readNumber', () => {
+  it('reads decimal points and decimal commas, and leaves blanks as missing', () => {
+    expect(readNumber('-79.85', '.')).toEqual({ ok: true, value: -79.85 })
+    expect(readNumber(' -79,85 ', ',')).toEqual({ ok: true, value: -79.85 })
+    expect(readNumber('\u221280,5', ',')).toEqual({ ok: true, value: -80.5 })
+    expect(readNumber('', '.')).toEqual({ ok: true, value: null })
+    expect(readNumber('NaN', '.')).toEqual({ ok: true, value: null })
+  })
+  it('explains a bad number and hints at a decimal comma', () => {
+    const r = readNumber('-79,85', '.')
+    expect(r.ok).toBe(false)
+    expect(!r.ok && r.reason).toMatch(/decimal comma/)
+    expect(readNumber('abc', '.').ok).toBe(false)
+    expect(readNumber('1.234,5', ',').ok).toBe(false)
+  })
+})
+
+describe('readState', () => {
+  it('reads the usual on/off spellings', () => {
+    for (const on of ['1', 'ON', 'true', 'Run', 'ein']) expect(readState(on)).toEqual({ ok: true, value: 1 })
+    for (const off of ['0', 'off', 'FALSE', 'stop', 'aus']) expect(readState(off)).toEqual({ ok: true, value: 0 })
+    expect(readState('maybe').ok).toBe(false)
+  })
+})
+
+describe('readTime', () => {
+  const utc = Date.UTC(2025, 2, 31, 14, 5, 0)
+  it('reads ISO dates with and without a zone', () => {
+    expect(readTime('2025-03-31 14:05:00', 'iso', 0)).toEqual({ ok: true, value: utc })
+    expect(readTime('2025-03-31T16:05:00+02:00', 'iso', 0)).toEqual({ ok: true, value: utc })
+    expect(readTime('2025-03-31 15:05:00', 'iso', 60)).toEqual({ ok: true, value: utc }) // logger clock on UTC+1
+    expect(readTime('2025-03-31T14:05:00.250Z', 'iso', 0)).toEqual({ ok: true, value: utc + 250 })
+  })
+  it('reads day-first and month-first dates, 2-digit years and AM/PM', () => {
+    expect(readTime('31.03.2025 14:05', 'day-month-year', 0)).toEqual({ ok: true, value: utc })
+    expect(readTime('31/03/25 14:05:00', 'day-month-year', 0)).toEqual({ ok: true, value: utc })
+    expect(readTime('03/31/2025 2:05 PM', 'month-day-year', 0)).toEqual({ ok: true, value: utc })
+    expect(readTime('03/31/2025 12:05 AM', 'month-day-year', 0)).toEqual({ ok: true, value: Date.UTC(2025, 2, 31, 0, 5) })
+  })
+  it('reads epoch, spreadsheet serials and elapsed time', () => {
+    expect(readTime(String(utc / 1000), 'epoch-s', 0)).toEqual({ ok: true, value: utc })
+    expect(readTime(String(utc), 'epoch-ms', 0)).toEqual({ ok: true, value: utc })
+    // 45 747 is 2025-03-31 in the 1900 date system (days since 1899-12-30); 14:05 is 0.586805… of a day.
+    expect(readTime(String(45747 + (14 * 60 + 5) / 1440), 'excel-serial', 0)).toEqual({ ok: true, value: utc })
+    expect(readTime('90', 'elapsed-min', 0)).toEqual({ ok: true, value: 90 * 60_000 })
+    expect(readTime('1,5', 'elapsed-h', 0)).toEqual({ ok: true, value: 90 * 60_000 })
+  })
+  it('refuses impossible dates and says what was expected', () => {
+    expect(readTime('2025-02-30 10:00:00', 'iso', 0).ok).toBe(false)
+    expect(readTime('31.13.2025 10:00', 'day-month-year', 0).ok).toBe(false)
+    const r = readTime('yesterday', 'iso', 0)
+    expect(!r.ok && r.reason).toMatch(/not a date and time like 2025-03-01 14:05:00/)
+  })
+})
+
+describe('guessTimeFormat', () => {
+  it('recognises the common layouts', () => {
+    expect(guessTimeFormat(['2025-03-01 08:00:00', '2025-03-01 08:01:00']).format).toBe('iso')
+    expect(guessTimeFormat(['12.03.2025 08:00', '13.03.2025 08:00'])).toEqual({ format: 'day-month-year', assumption: null })
+    expect(guessTimeFormat(['03/12/2025 08:00', '03/13/2025 08:00'])).toEqual({ format: 'month-day-year', assumption: null })
+    expect(guessTimeFormat(['1740816000', '1740816060']).format).toBe('epoch-s')
+    expect(guessTimeFormat(['1740816000000']).format).toBe('epoch-ms')
+  })
+  it('says when it had to assume', () => {
+    const g = guessTimeFormat(['01/03/2025 08:00', '01/03/2025 08:01'])
+    expect(g.format).toBe('day-month-year')
+    expect(g.assumption).toMatch(/day\/month or month\/day/)
+    expect(guessTimeFormat(['0', '60', '120']).assumption).toMatch(/seconds since the start/)
+  })
+})
