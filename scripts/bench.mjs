@@ -1,6 +1,7 @@
 #!/usr/bin/env node
-// `npm run bench`: prints Rimecase's speed figures. In-process benchmarks of the property module and
-// the diagnosis engine, then HTTP and browser figures against a throwaway stack on loopback.
+// `npm run bench`: prints Rimecase's speed figures. In-process benchmarks of the property module, the
+// diagnosis engine and the data-logger CSV analysis, then HTTP and browser figures against a throwaway
+// stack on loopback.
 import { spawn } from 'node:child_process'
 import { join } from 'node:path'
 import { ROOT, ensureChromium, ensureNodeModules, step } from './lib/system.mjs'
@@ -21,6 +22,8 @@ step('Refrigerant properties (in-process)')
 await run(bin('tsx'), ['--tsconfig', 'tsconfig.scripts.json', 'scripts/bench-properties.ts'])
 step('Diagnosis engine (in-process)')
 await run(bin('tsx'), ['--tsconfig', 'tsconfig.scripts.json', 'scripts/bench-diagnosis.ts'])
+step('Data-logger CSV, 50 MB / 1 million rows, streaming (in-process)')
+await run(bin('tsx'), ['--tsconfig', 'tsconfig.scripts.json', 'scripts/bench-logger.ts'])
 step('HTTP and browser (throwaway stack on loopback)')
 const db = await startDatabase('rimecase-bench-')
 let server

@@ -8,23 +8,57 @@ import type { TimeFormat } from '#shared/types/logger'
 export type Cell<T> = { ok: true; value: T } | { ok: false; reason: string }
 const bad = (reason: string): { ok: false; reason: string } => ({ ok: false, reason })
 
-const POINT_NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/
-const COMMA_NUMBER = /^[+-]?(\d+,?\d*|,\d+)([eE][+-]?\d+)?$/
+const MISSING_WORDS = /^(n\/?a|nan|null|---?)$/i
+const MINUS = 0x2212
 
-/** A number written with `decimal` as its decimal mark; '' is missing (null). */
+/**
+ * A number written with `decimal` as its decimal mark; '' is missing (null). A character scan checks
+ * the form (sign, digits, one decimal mark, optional exponent) before Number() reads it, which is far
+ * quicker than regular expressions on a million-row file and as exact.
+ */
 export function readNumber(text: string, decimal: '.' | ','): Cell<number | null> {
-  let s = text.trim()
-  if (s === '' || s === '-' || /^(n\/?a|nan|null|---?)$/i.test(s)) return { ok: true, value: null }
-  s = s.replace(/\u2212/g, '-').replace(/^\+/, '')
-  if (decimal === ',') {
-    if (!COMMA_NUMBER.test(s)) return bad(`"${text.trim()}" is not a number with a decimal comma`)
-    s = s.replace(',', '.')
-  } else if (!POINT_NUMBER.test(s)) {
-    return bad(`"${text.trim()}" is not a number${/^[+-]?\d+,\d+$/.test(s) ? ' (a decimal comma? set the decimal mark to ",")' : ''}`)
+  const mark = decimal.charCodeAt(0)
+  let i = 0
+  let n = text.length
+  while (i < n && text.charCodeAt(i) <= 32) i++
+  while (n > i && text.charCodeAt(n - 1) <= 32) n--
+  if (i === n) return MISSING
+  let k = i
+  let c = text.charCodeAt(k)
+  const minus = c === MINUS
+  if (c === 45 || c === 43 || minus) k++
+  let digits = 0
+  let marks = 0
+  let markAt = -1
+  for (; k < n; k++) {
+    c = text.charCodeAt(k)
+    if (c >= 48 && c <= 57) digits++
+    else if (c === mark && marks === 0) {
+      marks++
+      markAt = k
+    } else break
   }
-  const value = Number(s)
-  return Number.isFinite(value) ? { ok: true, value } : bad(`"${text.trim()}" is out of range`)
+  if (k < n && digits > 0 && (c === 101 || c === 69)) {
+    // exponent: e, an optional sign, digits
+    k++
+    if (k < n && (text.charCodeAt(k) === 45 || text.charCodeAt(k) === 43)) k++
+    const from = k
+    while (k < n && text.charCodeAt(k) >= 48 && text.charCodeAt(k) <= 57) k++
+    if (k === from) k = -1
+  }
+  if (k !== n || digits === 0) {
+    const shown = text.slice(i, n)
+    if (n - i === 1 && (c === 45 || c === MINUS)) return MISSING
+    if (MISSING_WORDS.test(shown)) return MISSING
+    const hint = decimal === '.' && /^[+-]?\d+,\d+$/.test(shown) ? ' (a decimal comma? set the decimal mark to ",")' : ''
+    return bad(`"${shown}" is not a number${decimal === ',' ? ' with a decimal comma' : ''}${hint}`)
+  }
+  let body = text.slice(minus ? i + 1 : i, n)
+  if (markAt >= 0 && mark !== 46) body = body.replace(',', '.')
+  const value = minus ? -Number(body) : Number(body)
+  return Number.isFinite(value) ? { ok: true, value } : bad(`"${text.slice(i, n)}" is out of range`)
 }
+const MISSING: Cell<null> = { ok: true, value: null }
 
 const ON = /^(1|on|true|yes|run|running|ein|an|y)$/i
 const OFF = /^(0|off|false|no|stop|stopped|aus|n)$/i
@@ -102,6 +136,66 @@ export function readTime(text: string, format: Exclude<TimeFormat, 'auto'>, offs
       const factor = format === 'elapsed-s' ? 1000 : format === 'elapsed-min' ? 60_000 : 3_600_000
       return { ok: true, value: Math.round(n * factor) }
     }
+  }
+}
+
+const digit = (s: string, i: number) => s.charCodeAt(i) - 48
+const isDigit = (s: string, i: number) => {
+  const c = s.charCodeAt(i)
+  return c >= 48 && c <= 57
+}
+const two = (s: string, i: number) => digit(s, i) * 10 + digit(s, i + 1)
+
+/**
+ * A time reader for one file. The usual fixed layouts ("2025-03-01 14:05:00", "01.03.2025 14:05:00")
+ * are read digit by digit, with the day looked up once per date, because a million rows share a few
+ * dates; anything else goes through readTime.
+ */
+export function timeReader(format: Exclude<TimeFormat, 'auto'>, offsetMinutes: number): (text: string) => Cell<number> {
+  const offsetMs = offsetMinutes * 60_000
+  let lastDate = ''
+  let lastDayMs = 0
+  const fixed = (s: string): number | null => {
+    // positions of year, month, day in the first 10 characters, and the separators they need
+    let y: number, mo: number, d: number
+    if (format === 'iso' && s.charCodeAt(4) === 45 && s.charCodeAt(7) === 45) {
+      if (!isDigit(s, 0) || !isDigit(s, 1) || !isDigit(s, 2) || !isDigit(s, 3) || !isDigit(s, 5) || !isDigit(s, 6) || !isDigit(s, 8) || !isDigit(s, 9)) return null
+      y = two(s, 0) * 100 + two(s, 2)
+      mo = two(s, 5)
+      d = two(s, 8)
+    } else if (format === 'day-month-year' && s.charCodeAt(2) === 46 && s.charCodeAt(5) === 46) {
+      if (!isDigit(s, 0) || !isDigit(s, 1) || !isDigit(s, 3) || !isDigit(s, 4) || !isDigit(s, 6) || !isDigit(s, 7) || !isDigit(s, 8) || !isDigit(s, 9)) return null
+      d = two(s, 0)
+      mo = two(s, 3)
+      y = two(s, 6) * 100 + two(s, 8)
+    } else return null
+    const sep = s.charCodeAt(10)
+    if (sep !== 32 && sep !== 84) return null
+    if (s.charCodeAt(13) !== 58 || !isDigit(s, 11) || !isDigit(s, 12) || !isDigit(s, 14) || !isDigit(s, 15)) return null
+    let sec = 0
+    if (s.length === 19) {
+      if (s.charCodeAt(16) !== 58 || !isDigit(s, 17) || !isDigit(s, 18)) return null
+      sec = two(s, 17)
+    }
+    const h = two(s, 11)
+    const mi = two(s, 14)
+    if (h > 23 || mi > 59 || sec > 59) return null
+    const date = s.slice(0, 10)
+    if (date !== lastDate) {
+      if (mo < 1 || mo > 12 || d < 1) return null
+      const dayMs = Date.UTC(y, mo - 1, d)
+      if (new Date(dayMs).getUTCDate() !== d) return null
+      lastDate = date
+      lastDayMs = dayMs
+    }
+    return lastDayMs + h * 3_600_000 + mi * 60_000 + sec * 1000 - offsetMs
+  }
+  return (text) => {
+    if ((text.length === 19 || text.length === 16) && (format === 'iso' || format === 'day-month-year')) {
+      const t = fixed(text)
+      if (t !== null) return { ok: true, value: t }
+    }
+    return readTime(text, format, offsetMinutes)
   }
 }
 

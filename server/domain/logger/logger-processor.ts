@@ -16,7 +16,7 @@ import type { Quantity, ReadingUnit, Stage } from '#shared/types/diagnosis'
 import { isStageQuantity } from '#shared/types/diagnosis'
 import { toKpaAbs } from '#shared/utils/properties'
 import { BadInputError } from '#server/domain/errors'
-import { guessTimeFormat, isElapsed, readNumber, readState, readTime, type Cell } from './cell-values'
+import { guessTimeFormat, isElapsed, readNumber, readState, timeReader, type Cell } from './cell-values'
 import { LoggerTextDecoder, detectDecimal, detectDelimiter, findHeaderRow, headerKey, type Delimiter } from './csv-text'
 import { analysePullDown } from './pulldown-analysis'
 import { TimeBuckets } from './time-buckets'
@@ -312,6 +312,7 @@ class RowState {
   private readonly runIdx: number
   private run = { prev: null as number | null, since: 0, starts: 0, short: 0, onMs: 0, knownMs: 0, prevT: 0 }
   private lastProgress = -1
+  private readonly readTime: (text: string) => Cell<number>
 
   constructor(
     private readonly mapping: LoggerMapping,
@@ -327,6 +328,7 @@ class RowState {
     this.offsetMs = isElapsed(setup.timeFormat) && mapping.time.startedAt ? Date.parse(mapping.time.startedAt) : 0
     this.runIdx = setup.columns.findIndex((c) => c.quantity === 'compressorRunning')
     if (setup.timeAssumption) this.warnings.push(setup.timeAssumption)
+    this.readTime = timeReader(setup.timeFormat, mapping.time.utcOffsetMinutes)
   }
 
   private error(row: number, column: string | null, message: string): void {
@@ -356,7 +358,7 @@ class RowState {
         continue
       }
       const timeText = s.todIndex === null ? row[s.timeIndex]! : `${row[s.timeIndex]} ${row[s.todIndex]}`
-      const time = readTime(timeText, s.timeFormat, this.mapping.time.utcOffsetMinutes)
+      const time = this.readTime(timeText)
       if (!time.ok) {
         this.rowsWithErrors++
         this.error(line, s.timeName, `time ${time.reason}`)

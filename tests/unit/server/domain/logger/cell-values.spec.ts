@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { guessTimeFormat, readNumber, readState, readTime } from '#server/domain/logger/cell-values'
+import { guessTimeFormat, readNumber, readState, readTime, timeReader } from '#server/domain/logger/cell-values'
 
 describe('readNumber', () => {
   it('reads decimal points and decimal commas, and leaves blanks as missing', () => {
@@ -8,6 +8,11 @@ describe('readNumber', () => {
     expect(readNumber('\u221280,5', ',')).toEqual({ ok: true, value: -80.5 })
     expect(readNumber('', '.')).toEqual({ ok: true, value: null })
     expect(readNumber('NaN', '.')).toEqual({ ok: true, value: null })
+    expect(readNumber('1.5e-3', '.')).toEqual({ ok: true, value: 0.0015 })
+    expect(readNumber('+7', '.')).toEqual({ ok: true, value: 7 })
+    // the character scan gives the same double as Number() on the same text
+    for (const t of ['-79.853', '0.1', '123456.789', '-0.0001']) expect(readNumber(t, '.')).toEqual({ ok: true, value: Number(t) })
+    for (const t of ['-79,853', '0,1']) expect(readNumber(t, ',')).toEqual({ ok: true, value: Number(t.replace(',', '.')) })
   })
   it('explains a bad number and hints at a decimal comma', () => {
     const r = readNumber('-79,85', '.')
@@ -15,6 +20,7 @@ describe('readNumber', () => {
     expect(!r.ok && r.reason).toMatch(/decimal comma/)
     expect(readNumber('abc', '.').ok).toBe(false)
     expect(readNumber('1.234,5', ',').ok).toBe(false)
+    for (const t of ['0x10', 'Infinity', '1e', '--5', '5-', '1,2,3']) expect(readNumber(t, '.').ok, t).toBe(false)
   })
 })
 
@@ -53,6 +59,20 @@ describe('readTime', () => {
     expect(readTime('31.13.2025 10:00', 'day-month-year', 0).ok).toBe(false)
     const r = readTime('yesterday', 'iso', 0)
     expect(!r.ok && r.reason).toMatch(/not a date and time like 2025-03-01 14:05:00/)
+  })
+})
+
+describe('timeReader', () => {
+  it('reads the fixed layouts digit by digit exactly as readTime does, across date changes', () => {
+    const iso = timeReader('iso', 60)
+    const dmy = timeReader('day-month-year', 0)
+    for (const t of ['2025-03-31 23:59:59', '2025-04-01 00:00:00', '2025-04-01T00:00', '2024-02-29 12:00:00', '2025-03-31 14:05:00+02:00']) {
+      expect(iso(t), t).toEqual(readTime(t, 'iso', 60))
+    }
+    for (const t of ['31.03.2025 23:59:59', '01.04.2025 00:00', '1.4.2025 00:00']) expect(dmy(t), t).toEqual(readTime(t, 'day-month-year', 0))
+    expect(iso('2025-02-29 10:00:00').ok).toBe(false) // 2025 is not a leap year
+    expect(iso('2025-13-01 10:00:00').ok).toBe(false)
+    expect(iso('2025-03-01 24:00:00').ok).toBe(false)
   })
 })
 
