@@ -310,7 +310,7 @@ class RowState {
   private readonly needed: number
   private readonly offsetMs: number
   private readonly runIdx: number
-  private run = { prev: null as number | null, since: 0, starts: 0, short: 0, onMs: 0, knownMs: 0, prevT: 0 }
+  private run = { prev: null as number | null, since: 0, starts: 0, short: 0, onMs: 0, knownMs: 0, prevT: 0, firstAt: null as number | null }
   private lastProgress = -1
   private readonly readTime: (text: string) => Cell<number>
 
@@ -440,6 +440,7 @@ class RowState {
       r.prev = null
       return
     }
+    if (r.firstAt === null) r.firstAt = t
     if (state === 1 && r.prev === 0) {
       r.starts++
       r.since = t
@@ -572,8 +573,12 @@ class RowState {
     }
     if (setpoint.value !== null && setpoint.source !== 'unit') out.push({ quantity: 'setpointTemperature', value: setpoint.value, unit: 'C', at: null, note: setpoint.source === 'mapping' ? 'Setpoint given with the mapping' : 'Last logged setpoint' })
     const r = this.run
-    if (compressor && r.prev === 1 && r.starts > 0 && this.lastT !== null) {
-      out.push({ quantity: 'runtime', value: round((this.lastT - r.since) / 60_000, 1), unit: 'min', at: at(this.lastT), note: 'Minutes the compressor had run since its last start, at the end of the log' })
+    if (compressor && r.prev === 1 && this.lastT !== null) {
+      // Running all through the log: the run began before it, so the figure is a lower bound.
+      const throughout = r.starts === 0
+      const since = throughout ? (r.firstAt ?? this.lastT) : r.since
+      const note = throughout ? 'The compressor ran all through the log: at least this many minutes' : 'Minutes the compressor had run since its last start, at the end of the log'
+      out.push({ quantity: 'runtime', value: round((this.lastT - since) / 60_000, 1), unit: 'min', at: at(this.lastT), note })
     }
     return out
   }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { processLoggerCsv } from '#server/domain/logger/logger-processor'
 import type { LoggerMappingInput } from '#shared/schemas/logger'
+import { readingSchema, symptomSchema } from '#shared/schemas/diagnosis'
 import { chunked, dmyTime, isoTime, pullDownSeries, stream } from './fixtures'
 
 const cabinet = pullDownSeries({ fromC: 22, toC: -80, rateKPerHour: 30, stall: { levelC: -45, minutes: 180 } }, 10 * 60)
@@ -45,8 +46,12 @@ describe('processLoggerCsv: a good file', () => {
         expect.objectContaining({ quantity: 'cabinetTemperature', unit: 'C', at: Date.UTC(2025, 2, 1, 8) + 599 * 60_000 }),
         expect.objectContaining({ quantity: 'compressorRunning', stage: 'low', value: true, unit: 'bool' }),
         expect.objectContaining({ quantity: 'setpointTemperature', value: -80 }),
+        expect.objectContaining({ quantity: 'runtime', value: 599, unit: 'min', note: expect.stringMatching(/at least/) }),
       ]),
     )
+    // What is offered must be accepted as it stands by a case's readings and symptoms.
+    for (const { quantity, stage, value, unit } of r.offered.readings) expect(readingSchema.safeParse({ quantity, ...(stage ? { stage } : {}), value, unit }).success, quantity).toBe(true)
+    for (const s of r.offered.symptoms) expect(symptomSchema.safeParse(s.symptom).success).toBe(true)
   })
 
   it('gives the same result however the bytes are cut into chunks', async () => {
