@@ -312,6 +312,7 @@ class RowState {
   private readonly runIdx: number
   private run = { prev: null as number | null, since: 0, starts: 0, short: 0, onMs: 0, knownMs: 0, prevT: 0, firstAt: null as number | null }
   private lastProgress = -1
+  private clockShiftMs = 0
   private readonly readTime: (text: string) => Cell<number>
 
   constructor(
@@ -364,7 +365,14 @@ class RowState {
         this.error(line, s.timeName, `time ${time.reason}`)
         continue
       }
-      const t = time.value + this.offsetMs
+      let t = time.value + this.offsetMs + this.clockShiftMs
+      if (this.lastT !== null && t < this.lastT && this.isClockChange(this.lastT - t)) {
+        // Loggers on local time repeat an hour when daylight-saving time ends; from here on their
+        // clock is one hour behind the offset in the mapping, so later times move forward one hour.
+        this.clockShiftMs += 3_600_000
+        t += 3_600_000
+        this.warnings.push(`At row ${line} the logger's clock went back one hour (the end of daylight-saving time?); later times were moved forward one hour.`)
+      }
       if (this.lastT !== null && t < this.lastT) {
         this.rowsWithErrors++
         this.error(line, s.timeName, `time goes back (${new Date(t).toISOString()} after ${new Date(this.lastT).toISOString()}); rows must be in time order`)
@@ -414,6 +422,13 @@ class RowState {
     this.chart.add(t, this.values)
     this.analysis.add(t, this.values)
     this.lastT = t
+  }
+
+  /** A step back of one hour (within two sampling intervals) on a calendar clock. */
+  private isClockChange(backMs: number): boolean {
+    if (isElapsed(this.setup.timeFormat)) return false
+    const slack = Math.max(2 * (this.typicalMs ?? this.intervals[0] ?? 60_000), 1000)
+    return Math.abs(backMs - 3_600_000) <= slack
   }
 
   private settleInterval(): void {

@@ -112,6 +112,18 @@ describe('processLoggerCsv: odd files', () => {
     expect(s.span!.minutes).toBe(119)
   })
 
+  it('follows a logger clock that goes back one hour when daylight-saving time ends', async () => {
+    // Local time, UTC+2 in summer: 02:00–02:59 is written twice on the night the clocks go back.
+    const lines = ['Time,Cabinet']
+    const local = (m: number) => isoTime(m, Date.UTC(2025, 9, 26, 1, 0))
+    for (let m = 0; m < 120; m++) lines.push(`${local(m)},-80`) // 01:00 … 02:59 summer time
+    for (let m = 60; m < 180; m++) lines.push(`${local(m)},-80`) // 02:00 … 03:59 winter time
+    const r = await processLoggerCsv(stream(lines.join('\n')), { time: { column: 'Time', utcOffsetMinutes: 120 }, columns: [{ column: 'Cabinet', quantity: 'cabinetTemperature', unit: 'C' }] })
+    expect(r.rows.withErrors).toBe(0)
+    expect(r.span).toMatchObject({ startAt: Date.UTC(2025, 9, 25, 23, 0), minutes: 239 })
+    expect(r.warnings.join(' ')).toMatch(/At row 122 the logger's clock went back one hour/)
+  })
+
   it('takes columns by position in a file without a header', async () => {
     const rows = Array.from({ length: 60 }, (_, m) => `${isoTime(m)},${cabinet[m]!.toFixed(2)}`)
     const r = await processLoggerCsv(stream(rows.join('\n')), { hasHeader: false, time: { column: 0 }, columns: [{ column: 1, quantity: 'cabinetTemperature', unit: 'C' }] })
