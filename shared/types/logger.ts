@@ -3,26 +3,16 @@
  * pull-downs, stalls, and the readings and symptoms it offers to a case). The column-mapping schema is in
  * shared/schemas/logger.ts; the analysis itself in server/domain/logger.
  */
-import type { Quantity, ReadingUnit, Stage, Symptom } from './diagnosis'
+import { QUANTITIES, type Quantity, type ReadingUnit, type Stage, type Symptom } from './diagnosis'
 
 /** Quantities a logger column can carry: the case vocabulary, minus those a logger cannot record. */
-export const LOGGER_QUANTITIES = [
-  'cabinetTemperature',
-  'setpointTemperature',
-  'cascadeHxTemperature',
-  'ambientTemperature',
-  'condenserAirInTemperature',
-  'condenserAirOutTemperature',
-  'evaporatorTemperature',
-  'suctionTemperature',
-  'dischargeTemperature',
-  'liquidLineTemperature',
-  'suctionPressure',
-  'dischargePressure',
-  'compressorCurrent',
-  'compressorRunning',
-] as const satisfies readonly Quantity[]
-export type LoggerQuantity = (typeof LOGGER_QUANTITIES)[number]
+const NOT_LOGGED = ['runtime', 'standingPressure'] as const
+export type LoggerQuantity = Exclude<Quantity, (typeof NOT_LOGGED)[number]>
+// Typed as a non-empty tuple because zod's enum needs one; the filter leaves all but two words.
+export const LOGGER_QUANTITIES = QUANTITIES.filter((q): q is LoggerQuantity => !(NOT_LOGGED as readonly string[]).includes(q)) as unknown as readonly [
+  LoggerQuantity,
+  ...LoggerQuantity[],
+]
 
 /** A column the analysis keeps for the chart but does not interpret. */
 export const OTHER_QUANTITY = 'other'

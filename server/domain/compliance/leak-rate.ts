@@ -96,12 +96,21 @@ function limitsText(rule: LeakRateRule): string {
     .join('; ')
 }
 
-function describeRule(rule: LeakRateRule) {
-  return { id: rule.id, title: rule.title, citation: rule.citation }
-}
+type Verdict = Partial<Pick<LeakRateAssessmentDto, 'thresholdPercent' | 'exceedsThreshold' | 'repairWithinDays' | 'sources'>>
 
-function noLimitAssessment(j: Jurisdiction, text: string[]): LeakRateAssessmentDto {
-  return { jurisdiction: j.id, applies: false, rule: null, thresholdPercent: null, exceedsThreshold: null, repairWithinDays: null, text, sources: [] }
+/** One answer shape for every outcome, so each branch states only what it knows. */
+function answer(j: Jurisdiction, applies: boolean | null, rule: LeakRateRule | null, text: string[], more: Verdict = {}): LeakRateAssessmentDto {
+  return {
+    jurisdiction: j.id,
+    applies,
+    rule: rule ? { id: rule.id, title: rule.title, citation: rule.citation } : null,
+    thresholdPercent: null,
+    exceedsThreshold: null,
+    repairWithinDays: null,
+    sources: rule ? [sourceOf(j.sources, rule.source)] : [],
+    ...more,
+    text,
+  }
 }
 
 /**
@@ -115,11 +124,10 @@ export function assessLeakRate(leakRatePercent: number, ctx: LeakRateContext): L
   const day = dayNumber(ctx.date)
   const onDate = typeof ctx.date === 'string' ? ctx.date.slice(0, 10) : ctx.date.toISOString().slice(0, 10)
   if (!j.leakRateRules.length) {
-    return noLimitAssessment(j, [`${j.name} sets no leak-rate limit; it requires leak checks at intervals instead (see the CO2-equivalent calculation).`])
+    return answer(j, false, null, [`${j.name} sets no leak-rate limit; it requires leak checks at intervals instead (see the CO2-equivalent calculation).`])
   }
   const rules = j.leakRateRules.filter((r) => inForce(r, day))
-  if (!rules.length) return noLimitAssessment(j, [`No leak-rate rule of ${j.name} was in force on ${onDate}.`])
-  const chargeLb = ctx.fullChargeG / GRAMS_PER_POUND
+  if (!rules.length) return answer(j, false, null, [`No leak-rate rule of ${j.name} was in force on ${onDate}.`])
   const reasons: string[] = []
   const open: LeakRateRule[] = []
   for (const rule of rules) {
@@ -128,58 +136,29 @@ export function assessLeakRate(leakRatePercent: number, ctx: LeakRateContext): L
     else open.push(rule)
   }
   if (!open.length) {
-    return noLimitAssessment(j, [...reasons, 'No leak-rate limit applies. Recovery and the ban on knowingly venting refrigerant still apply to most refrigerants whatever the charge; check the rules for this one.'])
+    return answer(j, false, null, [...reasons, 'No leak-rate limit applies. Recovery and the ban on knowingly venting refrigerant still apply to most refrigerants whatever the charge; check the rules for this one.'])
   }
   if (designation === undefined) {
-    return {
-      jurisdiction: j.id,
-      applies: null,
-      rule: null,
-      thresholdPercent: null,
-      exceedsThreshold: null,
-      repairWithinDays: null,
-      text: [
-        'Give the refrigerant to tell whether a leak-rate limit applies.',
-        ...open.map((r) => `${r.citation} (${r.title.toLowerCase()}) applies from ${r.minFullChargeLb} lb full charge; limits: ${limitsText(r)}.`),
-      ],
-      sources: open.map((r) => sourceOf(j.sources, r.source)),
-    }
+    const text = ['Give the refrigerant to tell whether a leak-rate limit applies.', ...open.map((r) => `${r.citation} (${r.title.toLowerCase()}) applies from ${r.minFullChargeLb} lb full charge; limits: ${limitsText(r)}.`)]
+    return answer(j, null, null, text, { sources: open.map((r) => sourceOf(j.sources, r.source)) })
   }
   const rule = open[0]!
-  const sources = [sourceOf(j.sources, rule.source)]
-  const base = { jurisdiction: j.id, rule: describeRule(rule), sources }
   const note = rule.coverageNote ? [rule.coverageNote] : []
-  if (chargeLb < rule.minFullChargeLb) {
-    return {
-      ...base,
-      applies: false,
-      thresholdPercent: null,
-      exceedsThreshold: null,
-      repairWithinDays: null,
-      text: [`${rule.citation} covers ${designation} only from a full charge of ${rule.minFullChargeLb} lb; this stage holds ${gramsAndPounds(ctx.fullChargeG)}, so no leak-rate limit applies.`, ...note],
-    }
+  if (ctx.fullChargeG / GRAMS_PER_POUND < rule.minFullChargeLb) {
+    return answer(j, false, rule, [`${rule.citation} covers ${designation} only from a full charge of ${rule.minFullChargeLb} lb; this stage holds ${gramsAndPounds(ctx.fullChargeG)}, so no leak-rate limit applies.`, ...note])
   }
   if (ctx.applianceType && rule.excludedApplianceTypes.includes(ctx.applianceType)) {
-    return {
-      ...base,
-      applies: false,
-      thresholdPercent: null,
-      exceedsThreshold: null,
-      repairWithinDays: null,
-      text: [`${rule.citation} excludes ${APPLIANCE_TYPE_LABELS[ctx.applianceType].toLowerCase()}, so no leak-rate limit applies.`, ...note],
-    }
+    return answer(j, false, rule, [`${rule.citation} excludes ${APPLIANCE_TYPE_LABELS[ctx.applianceType].toLowerCase()}, so no leak-rate limit applies.`, ...note])
   }
   const covered = `${rule.citation} covers ${designation} at ${gramsAndPounds(ctx.fullChargeG)} (from ${rule.minFullChargeLb} lb).`
-  if (!ctx.applianceType) {
-    return { ...base, applies: true, thresholdPercent: null, exceedsThreshold: null, repairWithinDays: null, text: [covered, `Give the appliance type to compare: limits are ${limitsText(rule)}.`, ...note] }
-  }
+  if (!ctx.applianceType) return answer(j, true, rule, [covered, `Give the appliance type to compare: limits are ${limitsText(rule)}.`, ...note])
   const threshold = rule.thresholdsPercent[ctx.applianceType]!
   const exceeds = leakRatePercent > threshold
   const type = APPLIANCE_TYPE_LABELS[ctx.applianceType].toLowerCase()
   const verdict = exceeds
     ? `A leak rate of ${figure(leakRatePercent, 2)} % per year exceeds the ${threshold} % limit for ${type}: repair the leak within ${rule.repair.withinDays} days of this addition (${rule.repair.withinDaysIfShutdown} days if an industrial process shutdown is needed), verify the repair, or retrofit or retire the appliance under a written plan.`
     : `A leak rate of ${figure(leakRatePercent, 2)} % per year is within the ${threshold} % limit for ${type}.`
-  return { ...base, applies: true, thresholdPercent: threshold, exceedsThreshold: exceeds, repairWithinDays: exceeds ? rule.repair.withinDays : null, text: [covered, verdict, ...note] }
+  return answer(j, true, rule, [covered, verdict, ...note], { thresholdPercent: threshold, exceedsThreshold: exceeds, repairWithinDays: exceeds ? rule.repair.withinDays : null })
 }
 
 /** The rule of the jurisdiction that governs a stage on `date`, if one covers its refrigerant and charge. */

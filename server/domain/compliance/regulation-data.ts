@@ -20,12 +20,29 @@ import usFederalFile from './data/jurisdictions/us-federal.json'
 export const F_GAS_REGIME_FILES: Readonly<Record<string, unknown>> = { 'eu-2014.json': eu2014File, 'eu-2024.json': eu2024File }
 export const JURISDICTION_FILES: Readonly<Record<string, unknown>> = { 'us-federal.json': usFederalFile, 'eu.json': euFile, 'gb.json': gbFile }
 
+const slug = z.string().regex(/^[a-z0-9-]+$/, 'a lower-case id such as us-federal')
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'a date as YYYY-MM-DD')
 const status = z.enum(['regulation text', 'secondary', 'from memory', 'computed'])
 const sourceSchema = z.object({ title: z.string().min(1), url: z.url().optional(), status }).strict()
 const sourcesSchema = z.record(z.string(), sourceSchema)
 const designation = z.string().regex(/^R\d+[A-Za-z]*$/, 'a designation such as R404A')
 const componentsSchema = z.array(z.object({ designation, massPercent: z.number().positive().max(100) }).strict()).min(2)
+
+/** Every `source` or `…Source` field of a file must name an entry of the file's own `sources`. */
+function sourcesResolve(file: { sources: Record<string, unknown> }, ctx: z.RefinementCtx): void {
+  const walk = (value: unknown, path: (string | number)[]): void => {
+    if (Array.isArray(value)) value.forEach((v, i) => walk(v, [...path, i]))
+    else if (value && typeof value === 'object') {
+      for (const [k, v] of Object.entries(value)) {
+        if (k === 'sources') continue
+        if ((k === 'source' || k.endsWith('Source')) && typeof v === 'string') {
+          if (!file.sources[v]) ctx.addIssue({ code: 'custom', path: [...path, k], message: `unknown source "${v}"` })
+        } else walk(v, [...path, k])
+      }
+    }
+  }
+  walk(file, [])
+}
 
 export const US_CLASSES = ['ods-class-i', 'ods-class-ii', 'hfc', 'substitute'] as const
 export type UsClass = (typeof US_CLASSES)[number]
@@ -46,13 +63,7 @@ const substanceSchema = z
 export const substancesFileSchema = z
   .object({ description: z.string(), sources: sourcesSchema, substances: z.array(substanceSchema).min(1) })
   .strict()
-  .superRefine((file, ctx) => {
-    file.substances.forEach((s, i) => {
-      for (const key of ['gwpSource', 'classSource'] as const) {
-        if (!file.sources[s[key]]) ctx.addIssue({ code: 'custom', path: ['substances', i, key], message: `unknown source "${s[key]}"` })
-      }
-    })
-  })
+  .superRefine(sourcesResolve)
 
 const fGasGasSchema = z
   .object({
@@ -69,7 +80,7 @@ const kilogramBand = z.object({ fromKilograms: z.number().positive(), belowKilog
 
 export const fGasRegimeSchema = z
   .object({
-    id: z.string().regex(/^[a-z0-9-]+$/),
+    id: slug,
     regulation: z.string().min(1),
     title: z.string().min(1),
     appliesFrom: isoDate,
@@ -91,24 +102,13 @@ export const fGasRegimeSchema = z
       .strict(),
   })
   .strict()
-  .superRefine((regime, ctx) => {
-    const known = (key: string, path: (string | number)[]) => {
-      if (!regime.sources[key]) ctx.addIssue({ code: 'custom', path, message: `unknown source "${key}"` })
-    }
-    for (const [d, gas] of Object.entries(regime.gases)) known(gas.source, ['gases', d, 'source'])
-    const lc = regime.leakChecks
-    known(lc.source, ['leakChecks', 'source'])
-    known(lc.leakDetectionMonthsSource, ['leakChecks', 'leakDetectionMonthsSource'])
-    known(lc.hermeticExemption.source, ['leakChecks', 'hermeticExemption', 'source'])
-    known(lc.leakDetectionRequired.source, ['leakChecks', 'leakDetectionRequired', 'source'])
-    known(lc.recheckAfterRepair.source, ['leakChecks', 'recheckAfterRepair', 'source'])
-  })
+  .superRefine(sourcesResolve)
 
 const applianceType = z.enum(APPLIANCE_TYPES)
 
 const leakRateRuleSchema = z
   .object({
-    id: z.string().regex(/^[a-z0-9-]+$/),
+    id: slug,
     title: z.string().min(1),
     citation: z.string().min(1),
     source: z.string(),
@@ -145,7 +145,7 @@ const leakRateRuleSchema = z
 
 export const jurisdictionSchema = z
   .object({
-    id: z.string().regex(/^[a-z0-9-]+$/),
+    id: slug,
     name: z.string().min(1),
     summary: z.string().min(1),
     sources: sourcesSchema,
@@ -154,21 +154,7 @@ export const jurisdictionSchema = z
     leakCheckRegimes: z.array(z.object({ regime: z.string(), from: isoDate, until: isoDate.nullable() }).strict()),
   })
   .strict()
-  .superRefine((j, ctx) => {
-    const known = (key: string, path: (string | number)[]) => {
-      if (!j.sources[key]) ctx.addIssue({ code: 'custom', path, message: `unknown source "${key}"` })
-    }
-    if (j.leakRate) {
-      known(j.leakRate.source, ['leakRate', 'source'])
-      known(j.leakRate.firstAdditionSource, ['leakRate', 'firstAdditionSource'])
-    }
-    j.leakRateRules.forEach((r, i) => {
-      known(r.source, ['leakRateRules', i, 'source'])
-      known(r.repair.source, ['leakRateRules', i, 'repair', 'source'])
-      r.leakInspections.forEach((li, k) => known(li.source, ['leakRateRules', i, 'leakInspections', k, 'source']))
-      if (r.chronicLeak) known(r.chronicLeak.source, ['leakRateRules', i, 'chronicLeak', 'source'])
-    })
-  })
+  .superRefine(sourcesResolve)
 
 export type SubstancesFile = z.infer<typeof substancesFileSchema>
 export type Substance = SubstancesFile['substances'][number]

@@ -54,6 +54,9 @@ describe('regulation data files', () => {
     const badSource = { ...readJson('f-gas/eu-2014.json') }
     badSource.leakChecks = { ...badSource.leakChecks, source: 'nowhere' }
     expect(() => parseDataFile('f-gas/eu-2014.json', fGasRegimeSchema, badSource)).toThrow(/unknown source "nowhere"/)
+    const badInspection = structuredClone(draft)
+    badInspection.leakRateRules[2].leakInspections[0].source = 'hearsay'
+    expect(() => parseDataFile('jurisdictions/us-test.json', jurisdictionSchema, badInspection)).toThrow(/leakRateRules\.2\.leakInspections\.0\.source: unknown source "hearsay"/)
   })
 
   it('has a source with a status for every figure', () => {
