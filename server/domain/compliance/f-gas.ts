@@ -119,7 +119,7 @@ export function assessFGasEquipment(input: FGasEquipmentInput): FGasEquipmentRes
   for (const c of circuits) {
     const amount = c.tonnesCo2e === null ? '' : ` = ${figure(c.tonnesCo2e, 3)} t CO2e`
     const gwp = c.gwp === null ? 'no GWP in this regulation' : `GWP ${figure(c.gwp, 3)}`
-    if (c.fGas) text.push(`${c.designation}: ${figure(c.chargeG / 1000, 3)} kg × ${gwp} ÷ 1000${amount} (${regime.regulation}).`)
+    if (c.fGas) text.push(`${c.designation}: ${figure(c.chargeG / 1000, 3)} kg × ${gwp} ÷ 1000${amount} (${regime.regulation})${c.reason ? `; ${c.reason}` : ''}.`)
     else text.push(`${c.designation} is not a fluorinated greenhouse gas under ${regime.regulation}: ${c.reason ?? 'not listed'}. No F-gas leak-check duty follows from it; national rules and EN 378 may still require checks.`)
   }
   if (circuits.length > 1 && circuits.some((c) => c.scope === 'annex-i')) {
@@ -134,7 +134,7 @@ export function assessFGasEquipment(input: FGasEquipmentInput): FGasEquipmentRes
     if (withLds) cite(lc.leakDetectionMonthsSource)
     text.push(`${what}: leak check at least every ${leakCheckIntervalMonths} months (${lc.citation}${withLds ? ', interval with a leak detection system fitted' : ''}).`)
     if (input.hermeticallySealed === true) text.push(`Hermetically sealed, but at or above the exemption limit of ${ex.citation}, so checks are still required.`)
-  } else if (circuits.some((c) => c.fGas)) {
+  } else if (circuits.some((c) => c.scope === 'annex-i' || c.scope === 'annex-ii-group-1')) {
     const min = lc.tonnesBands[0]!.fromTonnes
     text.push(`Below ${min} t CO2e${lc.kilogramBands.length ? ` and ${lc.kilogramBands[0]!.fromKilograms} kg of unsaturated HFCs` : ''}: ${regime.regulation} requires no periodic leak check.`)
   }

@@ -74,7 +74,10 @@ describe('co2eOfCharge: t CO2e = kg × GWP ÷ 1000 and the leak-check interval',
   it('counts unsaturated HFCs in kilograms under 2024 only', () => {
     expect(co2eOfCharge({ designation: 'R1234yf', chargeG: 1500, basis: 'eu-2024' })).toMatchObject({ scope: 'annex-ii-group-1', leakCheckIntervalMonths: 12 })
     expect(co2eOfCharge({ designation: 'R1234yf', chargeG: 1500, basis: 'eu-2024', hermeticallySealed: true }).leakCheckIntervalMonths).toBeNull() // under 2 kg, Art. 5(1)(b)
-    expect(co2eOfCharge({ designation: 'R1234yf', chargeG: 1500, basis: 'eu-2014' }).leakCheckIntervalMonths).toBeNull()
+    const in2014 = co2eOfCharge({ designation: 'R1234yf', chargeG: 1500, basis: 'eu-2014' })
+    expect(in2014.leakCheckIntervalMonths).toBeNull()
+    expect(in2014.text.join(' ')).toMatch(/Annex II: labelling and reporting only/)
+    expect(in2014.text.join(' ')).not.toMatch(/Below 5 t/)
   })
 
   it('accepts written-out designations and refuses unknown ones', () => {
