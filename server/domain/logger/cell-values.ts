@@ -60,6 +60,20 @@ export function readNumber(text: string, decimal: '.' | ','): Cell<number | null
 }
 const MISSING: Cell<null> = { ok: true, value: null }
 
+const UNIT_SUFFIX = /^(.*?\d\.?)\s*((?:°|º|\uFFFD)?\s*[CFK]|A|bar[ag]?|psi[ag]?|kPa[ag]?|MPa)\s*$/i
+
+/**
+ * A number followed by its unit, as some loggers write cells ("-79,8 °C", "15 psig"): the number and the
+ * unit as written (°C → C), or null when the cell carries no unit.
+ */
+export function splitUnit(text: string): { number: string; unit: string } | null {
+  const m = UNIT_SUFFIX.exec(text.trim())
+  if (!m) return null
+  const raw = m[2]!.replace(/[°º\uFFFD\s]/g, '')
+  const unit = /^[cfk]$/i.test(raw) ? raw.toUpperCase() : raw.toLowerCase() === 'kpa' ? 'kPa' : raw.toLowerCase() === 'kpag' ? 'kPag' : raw.toLowerCase() === 'mpa' ? 'MPa' : raw.toLowerCase()
+  return { number: m[1]!, unit }
+}
+
 const ON = /^(1|on|true|yes|run|running|ein|an|y)$/i
 const OFF = /^(0|off|false|no|stop|stopped|aus|n)$/i
 

@@ -5,6 +5,7 @@
  */
 import { Transform, type TransformCallback } from 'node:stream'
 import { BadInputError } from '#server/domain/errors'
+import { splitUnit } from './cell-values'
 
 export type Delimiter = ',' | ';' | '\t' | '|'
 
@@ -87,6 +88,9 @@ function countOutsideQuotes(line: string, ch: string): number {
  * before the data (a logger's preamble) may differ; the commonest count wins.
  */
 export function detectDelimiter(lines: readonly string[]): Delimiter {
+  // Spreadsheet exports may name their separator on the first line ("sep=;").
+  const declared = /^\uFEFF?sep=(.)\s*$/i.exec(lines[0] ?? '')?.[1]
+  if (declared && (CANDIDATES as string[]).includes(declared)) return declared as Delimiter
   const sample = lines.filter((l) => l.trim() !== '').slice(0, 200)
   let best: { d: Delimiter; score: number } | null = null
   for (const d of CANDIDATES) {
@@ -105,14 +109,16 @@ export function detectDelimiter(lines: readonly string[]): Delimiter {
 const COMMA_DECIMAL = /^[+-\u2212]?\d+,\d+$/
 const POINT_DECIMAL = /^[+-\u2212]?\d*\.\d+$/
 
-/** `,` when numeric cells use a decimal comma (only possible when the delimiter is not a comma). */
-export function detectDecimal(rows: readonly (readonly string[])[], delimiter: Delimiter): '.' | ',' {
-  if (delimiter === ',') return '.'
+/**
+ * `,` when numeric cells use a decimal comma. With a comma delimiter that is only possible in quoted
+ * cells ("-79,8"), which the parser has already unquoted here.
+ */
+export function detectDecimal(rows: readonly (readonly string[])[]): '.' | ',' {
   let comma = 0
   let point = 0
   for (const row of rows.slice(0, 500)) {
     for (const cell of row) {
-      const c = cell.trim()
+      const c = splitUnit(cell)?.number ?? cell.trim()
       if (COMMA_DECIMAL.test(c)) comma++
       else if (POINT_DECIMAL.test(c)) point++
     }

@@ -16,7 +16,7 @@ import type { Quantity, ReadingUnit, Stage } from '#shared/types/diagnosis'
 import { isStageQuantity } from '#shared/types/diagnosis'
 import { toKpaAbs } from '#shared/utils/properties'
 import { BadInputError } from '#server/domain/errors'
-import { guessTimeFormat, isElapsed, readNumber, readState, timeReader, type Cell } from './cell-values'
+import { guessTimeFormat, isElapsed, readNumber, readState, splitUnit, timeReader, type Cell } from './cell-values'
 import { LoggerTextDecoder, detectDecimal, detectDelimiter, findHeaderRow, headerKey, type Delimiter } from './csv-text'
 import { analysePullDown } from './pulldown-analysis'
 import { TimeBuckets } from './time-buckets'
@@ -74,7 +74,15 @@ function kindOf(unit: string): Kind {
 function reader(kind: Kind, unit: string, decimal: '.' | ','): (text: string) => Cell<number | null> {
   if (kind === 'state') return readState
   return (text) => {
-    const cell = readNumber(text, decimal)
+    let cell = readNumber(text, decimal)
+    if (!cell.ok) {
+      // Some loggers write the unit into every cell; it must agree with the mapping.
+      const split = splitUnit(text)
+      if (split) {
+        if (split.unit !== unit && !(kind === 'current' && split.unit === 'A')) return { ok: false, reason: `"${text.trim()}" is in ${split.unit}, but the mapping says ${unit}` }
+        cell = readNumber(split.number, decimal)
+      }
+    }
     if (!cell.ok || cell.value === null) return cell
     const v = cell.value
     if (kind === 'temperature') {
@@ -263,7 +271,7 @@ function settle(sample: string, ended: boolean, mapping: LoggerMapping, format: 
   const tod = mapping.time.timeOfDayColumn !== undefined ? locate(mapping.time.timeOfDayColumn).index : null
   const dataRows = rows.slice(dataStart).filter((r) => r.some((c) => c.trim() !== ''))
   const valueIndexes = mapping.columns.map((c) => locate(c.column).index)
-  const decimal = mapping.decimal === 'auto' ? detectDecimal(dataRows.map((r) => valueIndexes.map((i) => r[i] ?? '')), delimiter) : mapping.decimal
+  const decimal = mapping.decimal === 'auto' ? detectDecimal(dataRows.map((r) => valueIndexes.map((i) => r[i] ?? ''))) : mapping.decimal
   format.decimal = decimal
   const timeCell = (r: string[]) => (tod === null ? (r[time.index] ?? '') : `${r[time.index] ?? ''} ${r[tod] ?? ''}`)
   const guess = mapping.time.format === 'auto' ? guessTimeFormat(dataRows.slice(0, 200).map(timeCell)) : { format: mapping.time.format, assumption: null }

@@ -7,6 +7,7 @@
 import type { LoggerColumn, LoggerMappingInput } from '#shared/schemas/logger'
 import { isStageQuantity } from '#shared/types/diagnosis'
 import type { LoggerQuantity } from '#shared/types/logger'
+import { splitUnit } from './cell-values'
 import { headerKey } from './csv-text'
 
 const TIME_WORDS = /^(date ?time|timestamp|time ?stamp|time|date|zeit|datum|uhrzeit|zeitstempel|datum ?zeit|elapsed|min(utes)?|sec(onds)?)\b/
@@ -76,6 +77,7 @@ export function suggestMapping(header: readonly string[], sampleRows: readonly (
       unit = 'barg'
       notes.push(`"${name}": no pressure unit in the header; gauge bar assumed.`)
     }
+    if (!unit) unit = sampleRows.map((r) => splitUnit(r[i] ?? '')?.unit).find((u) => u !== undefined && u !== 'a') ?? null
     if (!unit) {
       const values = sampleRows.map((r) => Number((r[i] ?? '').replace(',', '.'))).filter(Number.isFinite)
       // Cabinet and room temperatures in kelvin are all above about 150; in °C or °F mostly below 100.

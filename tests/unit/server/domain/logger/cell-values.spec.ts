@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { guessTimeFormat, readNumber, readState, readTime, timeReader } from '#server/domain/logger/cell-values'
+import { guessTimeFormat, readNumber, readState, readTime, splitUnit, timeReader } from '#server/domain/logger/cell-values'
 
 describe('readNumber', () => {
   it('reads decimal points and decimal commas, and leaves blanks as missing', () => {
@@ -21,6 +21,17 @@ describe('readNumber', () => {
     expect(readNumber('abc', '.').ok).toBe(false)
     expect(readNumber('1.234,5', ',').ok).toBe(false)
     for (const t of ['0x10', 'Infinity', '1e', '--5', '5-', '1,2,3']) expect(readNumber(t, '.').ok, t).toBe(false)
+  })
+})
+
+describe('splitUnit', () => {
+  it('separates a unit written into the cell', () => {
+    expect(splitUnit('-79,8 °C')).toEqual({ number: '-79,8', unit: 'C' })
+    expect(splitUnit('-112.4°F')).toEqual({ number: '-112.4', unit: 'F' })
+    expect(splitUnit('193.2 K')).toEqual({ number: '193.2', unit: 'K' })
+    expect(splitUnit('15 psig')).toEqual({ number: '15', unit: 'psig' })
+    expect(splitUnit('3.4 A')).toEqual({ number: '3.4', unit: 'a' })
+    expect(splitUnit('-79.8')).toBeNull()
   })
 })
 

@@ -32,13 +32,13 @@ describe('detectDelimiter and detectDecimal', () => {
   it('prefers the semicolon when decimal commas also split lines evenly', () => {
     const lines = ['Time;Cabinet;Ambient', '2025-03-01 08:00;-79,8;21,3', '2025-03-01 08:01;-79,9;21,4']
     expect(detectDelimiter(lines)).toBe(';')
-    expect(detectDecimal([['-79,8', '21,3'], ['-79,9', '21,4']], ';')).toBe(',')
+    expect(detectDecimal([['-79,8', '21,3'], ['-79,9', '21,4']])).toBe(',')
   })
   it('finds commas and tabs, and ignores a preamble', () => {
     expect(detectDelimiter(['Logger model X-9; serial 1', 'Time,T1,T2', '1,2,3', '4,5,6'])).toBe(',')
     expect(detectDelimiter(['Time\tT1', '1\t2'])).toBe('\t')
-    expect(detectDecimal([['-79.8', '21.3']], ';')).toBe('.')
-    expect(detectDecimal([['-79,8']], ',')).toBe('.') // a comma delimiter cannot also be the decimal mark
+    expect(detectDecimal([['-79.8', '21.3']])).toBe('.')
+    expect(detectDelimiter(['sep=;', 'Time;T1', '1;2,5'])).toBe(';') // spreadsheet exports declare it
   })
 })
 

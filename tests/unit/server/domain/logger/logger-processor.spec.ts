@@ -98,6 +98,21 @@ describe('processLoggerCsv: odd files', () => {
     expect(r.warnings.join(' ')).toMatch(/day\/month or month\/day/)
   })
 
+  it('reads quoted decimal commas in a comma-separated file', async () => {
+    const lines = ['"Time","Cabinet"', ...Array.from({ length: 30 }, (_, m) => `"${isoTime(m)}","${cabinet[m]!.toFixed(1).replace('.', ',')}"`)]
+    const r = await processLoggerCsv(stream(lines.join('\n')), { time: { column: 'Time' }, columns: [{ column: 'Cabinet', quantity: 'cabinetTemperature', unit: 'C' }] })
+    expect(r.format).toMatchObject({ delimiter: ',', decimal: ',' })
+    expect(r.rows.valid).toBe(30)
+    expect(r.series[0]!.max).toBeCloseTo(21.5, 1)
+  })
+
+  it('reads cells that carry their unit, and refuses a unit that contradicts the mapping', async () => {
+    const lines = ['Time;Cabinet;Room', ...Array.from({ length: 20 }, (_, m) => `${isoTime(m)};${cabinet[m]!.toFixed(1).replace('.', ',')} °C;${m === 7 ? '70 °F' : '21,5 °C'}`)]
+    const r = await processLoggerCsv(stream(lines.join('\n')), { time: { column: 'Time' }, columns: [{ column: 'Cabinet', quantity: 'cabinetTemperature', unit: 'C' }, { column: 'Room', quantity: 'ambientTemperature', unit: 'C' }] })
+    expect(r.series[0]!.count).toBe(20)
+    expect(r.errors).toEqual([{ row: 9, column: 'Room', message: '"70 °F" is in F, but the mapping says C' }])
+  })
+
   it('reads kelvin columns, elapsed minutes and separate date and time columns', async () => {
     const kelvin = ['min,T_cab_K']
     for (let m = 0; m < 300; m++) kelvin.push(`${m},${(cabinet[m]! + 273.15).toFixed(2)}`)

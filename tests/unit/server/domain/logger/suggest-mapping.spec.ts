@@ -24,6 +24,11 @@ describe('suggestMapping', () => {
     expect(s.notes.join(' ')).toMatch(/kelvin assumed/)
   })
 
+  it('takes the unit from the cells when they carry it', () => {
+    const s = suggestMapping(['Time', 'Chamber'], [['2025-03-01 08:00', '-112,0 °F']])
+    expect(s.mapping.columns).toEqual([{ column: 'Chamber', quantity: 'cabinetTemperature', unit: 'F' }])
+  })
+
   it('says when it found no time or cabinet column', () => {
     const s = suggestMapping(['A', 'B'])
     expect(s.notes.join(' ')).toMatch(/No column looks like a time/)
