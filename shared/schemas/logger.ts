@@ -28,6 +28,7 @@ function unitsFor(q: LoggerQuantity | typeof OTHER_QUANTITY): readonly string[] 
   return TEMPERATURE_READING_UNITS
 }
 
+/** One mapped column: where it is, what quantity it holds, in which unit (and for which stage). */
 export const LoggerColumnSchema = z
   .object({
     column: ColumnRefSchema,
@@ -60,6 +61,7 @@ export const LoggerAnalysisSettingsSchema = z
   })
   .strict()
 
+/** A whole column mapping, as the upload's mapping step saves it per logger model. */
 export const LoggerMappingSchema = z
   .object({
     delimiter: words('delimiter', CSV_DELIMITERS).default('auto'),

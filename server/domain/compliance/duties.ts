@@ -18,6 +18,7 @@ import { stageRefrigerantLog, type LogCheck, type LogTransaction, type StageSetu
 import { inForce, requireJurisdiction, type LeakRateRule } from './regulation-data'
 import { GRAMS_PER_POUND, figure } from './words'
 
+/** What a unit can be due: a repair, a verification test, a leak inspection or check, a re-check after a repair, a report. */
 export const DUTY_KINDS = ['repair', 'verification-test', 'leak-inspection', 'leak-check', 'recheck-after-repair', 'chronic-leak-report'] as const
 export type DutyKind = (typeof DUTY_KINDS)[number]
 

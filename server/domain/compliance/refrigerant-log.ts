@@ -21,6 +21,7 @@ import { MAX_ANNUALIZING_DAYS, assessLeakRate } from './leak-rate'
 import { canonicalDesignation } from './substances'
 import { clean, figure } from './words'
 
+/** Why refrigerant was added; the first charge, a retrofit and seasonal variance get no leak rate. */
 export const ADDITION_PURPOSES = ['top-up', 'recharge', 'initial-charge', 'retrofit', 'seasonal-variance'] as const
 export type AdditionPurpose = (typeof ADDITION_PURPOSES)[number]
 
@@ -39,6 +40,7 @@ export interface LogTransaction {
   purpose?: AdditionPurpose | null
 }
 
+/** Leak checks, repairs, verification tests and reports a log can record beside its transactions. */
 export const CHECK_KINDS = ['leak-check', 'repair', 'initial-verification', 'follow-up-verification', 'chronic-leak-report'] as const
 export type CheckKind = (typeof CHECK_KINDS)[number]
 

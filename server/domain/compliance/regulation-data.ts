@@ -16,8 +16,9 @@ import euFile from './data/jurisdictions/eu.json'
 import gbFile from './data/jurisdictions/gb.json'
 import usFederalFile from './data/jurisdictions/us-federal.json'
 
-/** The file names each map holds, as they sit in data/; the registry test compares them with the folder. */
+/** The F-gas regulation files by name, as they sit in data/f-gas; the registry test compares them with the folder. */
 export const F_GAS_REGIME_FILES: Readonly<Record<string, unknown>> = { 'eu-2014.json': eu2014File, 'eu-2024.json': eu2024File }
+/** The jurisdiction files by name, as they sit in data/jurisdictions; compared with the folder likewise. */
 export const JURISDICTION_FILES: Readonly<Record<string, unknown>> = { 'us-federal.json': usFederalFile, 'eu.json': euFile, 'gb.json': gbFile }
 
 const slug = z.string().regex(/^[a-z0-9-]+$/, 'a lower-case id such as us-federal')
@@ -44,6 +45,7 @@ function sourcesResolve(file: { sources: Record<string, unknown> }, ctx: z.Refin
   walk(file, [])
 }
 
+/** How the US rules class a refrigerant: ozone-depleting class I or II, an HFC (or a blend with one), or another substitute. */
 export const US_CLASSES = ['ods-class-i', 'ods-class-ii', 'hfc', 'substitute'] as const
 export type UsClass = (typeof US_CLASSES)[number]
 
@@ -60,6 +62,7 @@ const substanceSchema = z
   })
   .strict()
 
+/** data/substances.json: each refrigerant's US class and AR4 GWP, with sources. */
 export const substancesFileSchema = z
   .object({ description: z.string(), sources: sourcesSchema, substances: z.array(substanceSchema).min(1) })
   .strict()
@@ -78,6 +81,7 @@ const fGasGasSchema = z
 const tonnesBand = z.object({ fromTonnes: z.number().positive(), belowTonnes: z.number().positive().nullable(), months: z.number().int().positive(), monthsWithLeakDetection: z.number().int().positive() }).strict()
 const kilogramBand = z.object({ fromKilograms: z.number().positive(), belowKilograms: z.number().positive().nullable(), months: z.number().int().positive(), monthsWithLeakDetection: z.number().int().positive() }).strict()
 
+/** data/f-gas/*.json: one EU F-gas regulation's GWP table, scope and leak-check intervals. */
 export const fGasRegimeSchema = z
   .object({
     id: slug,
@@ -143,6 +147,7 @@ const leakRateRuleSchema = z
     }
   })
 
+/** data/jurisdictions/*.json: a jurisdiction's leak-rate rules and which F-gas regime applies when. */
 export const jurisdictionSchema = z
   .object({
     id: slug,
@@ -187,6 +192,7 @@ function byId<T extends { id: string }>(files: Readonly<Record<string, unknown>>
   return out
 }
 
+/** The parsed data files, checked when this module loads. */
 export const SUBSTANCES: SubstancesFile = parseDataFile('substances.json', substancesFileSchema, substancesFile)
 export const F_GAS_REGIMES: ReadonlyMap<string, FGasRegime> = byId(F_GAS_REGIME_FILES, fGasRegimeSchema, 'f-gas')
 export const JURISDICTIONS: ReadonlyMap<string, Jurisdiction> = byId(JURISDICTION_FILES, jurisdictionSchema, 'jurisdictions')

@@ -37,6 +37,7 @@ export interface PullDownReport {
   notes: string[]
 }
 
+/** The analysis thresholds used when the mapping sets none (K, minutes, K per hour). */
 export const DEFAULTS = { setpointToleranceK: 3, stallBandK: 1.5, stallMinMinutes: 45, pullDownStartK: 10, stallAboveK: 5, warmUpK: 5, expectedRateKPerHour: 20, minDropK: 5 }
 
 const MIN = 60_000

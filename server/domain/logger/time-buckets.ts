@@ -7,6 +7,7 @@
  */
 import type { SeriesPoint } from '#shared/types/logger'
 
+/** Downsampled series with a shared, doubling time axis; see the module header. */
 export class TimeBuckets {
   private readonly min: Float64Array
   private readonly max: Float64Array
