@@ -3,7 +3,7 @@
  * as older loggers write "°C"), its delimiter and decimal mark, and where the header row is. Loggers
  * in comma-decimal locales separate columns with semicolons, so the semicolon wins a tie.
  */
-import { Transform, type TransformCallback } from 'node:stream'
+import { Transform, type Readable, type TransformCallback } from 'node:stream'
 import { BadInputError } from '#server/domain/errors'
 import { splitUnit } from './cell-values'
 
@@ -142,4 +142,40 @@ export function findHeaderRow(rows: readonly (readonly string[])[], names: reado
     const cells = new Set(row.map(headerKey))
     return wanted.every((w) => cells.has(w))
   })
+}
+
+/** Characters read ahead to settle a file's format before the whole of it streams through. */
+export const READ_AHEAD_CHARS = 65_536
+
+export interface ReadAhead {
+  decoder: LoggerTextDecoder
+  /** The rest of the decoded text, after `sample`. */
+  rest: AsyncIterator<string>
+  sample: string
+  /** True when the sample is the whole file. */
+  ended: boolean
+}
+
+/** Decodes the first 64 KB of a byte stream; throws BadInputError for a binary file. */
+export async function readAhead(input: Readable): Promise<ReadAhead> {
+  const decoder = new LoggerTextDecoder()
+  input.on('error', (e) => decoder.destroy(e))
+  const rest = input.pipe(decoder)[Symbol.asyncIterator]() as AsyncIterator<string>
+  let sample = ''
+  let ended = false
+  while (sample.length < READ_AHEAD_CHARS) {
+    const r = await rest.next()
+    if (r.done) {
+      ended = true
+      break
+    }
+    sample += r.value
+  }
+  return { decoder, rest, sample, ended }
+}
+
+/** The sample up to its last complete line (all of it when it is the whole file), and its lines. */
+export function completeLines(ahead: Pick<ReadAhead, 'sample' | 'ended'>): { text: string; lines: string[] } {
+  const text = ahead.ended ? ahead.sample : ahead.sample.slice(0, ahead.sample.lastIndexOf('\n') + 1) || ahead.sample
+  return { text, lines: text.split(/\r\n|\n|\r/) }
 }

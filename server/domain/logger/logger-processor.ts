@@ -17,7 +17,7 @@ import { isStageQuantity } from '#shared/types/diagnosis'
 import { toKpaAbs } from '#shared/utils/properties'
 import { BadInputError } from '#server/domain/errors'
 import { guessTimeFormat, isElapsed, readNumber, readState, splitUnit, timeReader, type Cell } from './cell-values'
-import { LoggerTextDecoder, detectDecimal, detectDelimiter, findHeaderRow, headerKey, type Delimiter } from './csv-text'
+import { completeLines, detectDecimal, detectDelimiter, findHeaderRow, headerKey, readAhead, type Delimiter, type ReadAhead } from './csv-text'
 import { analysePullDown } from './pulldown-analysis'
 import { TimeBuckets } from './time-buckets'
 
@@ -45,7 +45,6 @@ export interface ProcessOptions {
   analysisPoints?: number
 }
 
-const SAMPLE_CHARS = 65_536
 const SHORT_CYCLE_MS = 5 * 60_000 // an on-time under 5 min is a short cycle (common practice, no source)
 /** Share of data rows with errors above which the file is treated as not analysable. */
 const MAX_ERROR_SHARE = 0.2
@@ -143,26 +142,16 @@ export async function processLoggerCsv(input: Readable, mappingInput: LoggerMapp
   const mapping = parsed.data
   const signal = options.signal
   if (signal?.aborted) throw abortError()
-  const decoder = new LoggerTextDecoder()
-  input.on('error', (e) => decoder.destroy(e))
-  const text = input.pipe(decoder)
-  const it = text[Symbol.asyncIterator]() as AsyncIterator<string>
   const format: LoggerAnalysis['format'] = { encoding: 'utf-8', delimiter: ',', decimal: '.', headerRow: null, timeFormat: mapping.time.format, columns: [] }
-  let sample = ''
-  let ended = false
+  let ahead: ReadAhead
   try {
-    while (sample.length < SAMPLE_CHARS) {
-      const r = await it.next()
-      if (r.done) {
-        ended = true
-        break
-      }
-      sample += r.value
-    }
+    ahead = await readAhead(input)
   } catch (error) {
     if (error instanceof BadInputError) return emptyAnalysis(error.message, format)
     throw error
   }
+  const { decoder, sample, ended } = ahead
+  const it = ahead.rest
   format.encoding = decoder.encoding ?? 'utf-8'
   if (!sample.trim()) return emptyAnalysis('The file is empty.', format)
 
@@ -230,8 +219,7 @@ interface Settled {
 }
 
 function settle(sample: string, ended: boolean, mapping: LoggerMapping, format: LoggerAnalysis['format']): Settled {
-  const cut = ended ? sample : sample.slice(0, sample.lastIndexOf('\n') + 1) || sample
-  const lines = cut.split(/\r\n|\n|\r/)
+  const { text: cut, lines } = completeLines({ sample, ended })
   const delimiter = mapping.delimiter === 'auto' ? detectDelimiter(lines) : mapping.delimiter
   format.delimiter = delimiter
   const rows = Papa.parse<string[]>(cut, { delimiter, skipEmptyLines: false }).data

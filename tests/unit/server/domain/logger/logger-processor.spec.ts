@@ -186,6 +186,15 @@ describe('processLoggerCsv: broken files', () => {
     expect(r.rows).toMatchObject({ data: 50, valid: 47, withErrors: 6 })
   })
 
+  it('lists the first 100 problems and counts the rest', async () => {
+    const lines = goodCsv(600).trimEnd().split('\n').map((l, i) => (i > 0 && i <= 110 ? l.replace(/,1$/, ',?') : l))
+    const r = await processLoggerCsv(stream(lines.join('\n')), goodMapping)
+    expect(r.status).toBe('ok-with-errors') // 110 of 600 rows: under the 20 % at which a file fails
+    expect(r.errors).toHaveLength(100)
+    expect(r.errors[99]!.row).toBe(101)
+    expect(r.warnings.join(' ')).toMatch(/110 problems in all; the first 100 are listed/)
+  })
+
   it('fails a file whose rows are mostly unreadable, saying what to check', async () => {
     const semicolons = goodCsv(50).replace(/,/g, ';').replace(/\./g, ',')
     const r = await processLoggerCsv(stream(semicolons), { ...goodMapping, delimiter: ';', decimal: '.' })
