@@ -303,6 +303,12 @@ export function analysePullDown(series: AnalysisSeries, settings: AnalysisSettin
       evidence: `After reaching the setpoint the cabinet warmed ${warmUps.length} times, up to ${f1(worst.peakC)} °C (longest ${f0(longest)} min)${off ? `; the compressor was off during ${off} of them` : ''}.`,
     })
   }
+  const unrecovered = warmUps.at(-1)
+  if (unrecovered && unrecovered.endAt === null && unrecovered.peakC >= sp + tol + DEFAULTS.pullDownStartK && unrecovered.minutes >= 60) {
+    const how = `After reaching the setpoint the cabinet warmed to ${f1(unrecovered.peakC)} °C and had not recovered ${f0(unrecovered.minutes)} min later, at the end of the log`
+    if (unrecovered.compressorOff === true) symptoms.push({ symptom: 'compressor-not-starting', evidence: `${how}, with the compressor off.` })
+    else symptoms.push({ symptom: 'not-cooling', evidence: `${how}${unrecovered.compressorOff === false ? ', with the compressor running' : ''}.` })
+  }
   const trend = dailyTrend(points)
   if (trend && trend.slopeKPerDay >= 0.5 && trend.riseK >= 1.5) {
     symptoms.push({ symptom: 'warming-over-days', evidence: `The daily lowest cabinet temperature rose ${f1(trend.riseK)} K over ${trend.days} days (${f1(trend.slopeKPerDay)} K per day).` })

@@ -77,6 +77,15 @@ describe('analysePullDown', () => {
     expect(r.symptoms.map((s) => s.symptom)).toContain('intermittent-cooling')
   })
 
+  it('offers not-cooling, or compressor-not-starting, when the cabinet warms and does not recover', () => {
+    const cabinet = [...Array.from({ length: 60 }, () => -80), ...Array.from({ length: 240 }, (_, m) => -80 + m / 6)] // +40 K over 4 h
+    const running = analysePullDown(series(cabinet, { running: cabinet.map(() => 1) }), { setpointC: -80 })
+    expect(running.symptoms.map((s) => s.symptom)).toContain('not-cooling')
+    expect(running.symptoms.find((s) => s.symptom === 'not-cooling')!.evidence).toMatch(/had not recovered .* with the compressor running/)
+    const off = analysePullDown(series(cabinet, { running: cabinet.map((_, m) => (m < 60 ? 1 : 0)) }), { setpointC: -80 })
+    expect(off.symptoms.map((s) => s.symptom)).toContain('compressor-not-starting')
+  })
+
   it('offers warming over days when the daily lowest temperature creeps up', () => {
     const cabinet = Array.from({ length: 4 * 24 * 60 }, (_, m) => -80 + m / (24 * 60) + 0.5 * Math.sin(m / 30))
     const r = analysePullDown(series(cabinet), { setpointC: -80, setpointToleranceK: 6 })
