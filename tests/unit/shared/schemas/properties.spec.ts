@@ -24,7 +24,7 @@ describe('StandingPressureBodySchema', () => {
   const base = { designation: 'R170', ambientC: 20, volumeL: 10 }
   it('resolves the three modes', () => {
     expect(StandingPressureBodySchema.parse({ ...base, chargeG: 300 })).toMatchObject({ mode: 'charge', chargeG: 300 })
-    expect(StandingPressureBodySchema.parse({ ...base, pressureKpa: 1992 })).toMatchObject({ mode: 'pressure', pressureKpa: 1992 })
+    expect(StandingPressureBodySchema.parse({ ...base, pressureKpa: 1992 })).toMatchObject({ mode: 'pressure', pressure: { kpa: 1992 } })
     expect(StandingPressureBodySchema.parse({ designation: 'R170', ambientC: 25, referencePressureKpa: 1992, referenceAmbientC: 20 })).toMatchObject({ mode: 'shift' })
   })
 
