@@ -38,7 +38,7 @@ export const PRESSURE_UNIT_LABELS: Readonly<Record<AnyPressureUnit, PressureUnit
   psia: { short: 'psia', long: 'psi absolute (psia)', decimals: 1, gauge: false },
   psig: { short: 'psig', long: 'psi gauge (psig)', decimals: 1, gauge: true },
   MPa: { short: 'MPa abs', long: 'MPa absolute', decimals: 4, gauge: false },
-  micron: { short: 'micron', long: 'micron (µmHg, absolute)', decimals: 0, gauge: false },
+  micron: { short: 'micron abs', long: 'micron (µmHg, absolute)', decimals: 0, gauge: false },
   mbar: { short: 'mbar abs', long: 'millibar absolute (mbar)', decimals: 1, gauge: false },
   Pa: { short: 'Pa abs', long: 'pascal absolute (Pa)', decimals: 0, gauge: false },
   inHgV: { short: 'inHg vac', long: 'inches of mercury vacuum (inHg vac)', decimals: 2, gauge: true },

@@ -8,7 +8,7 @@ describe('pressureReading', () => {
     expect(pressureReading(1101.325, display)).toMatchObject({ value: 10, unit: 'barg', gauge: true, text: '10.000 bar g' })
     expect(pressureReading(1000, { unit: 'kPa', atmosphericKpa: 90 })).toMatchObject({ value: 1000, gauge: false, text: '1000.0 kPa abs' })
     // 500 microns = 66.66 Pa (1 micron = 0.133322 Pa).
-    expect(pressureReading(0.066661, { unit: 'micron', atmosphericKpa: 101.325 }).text).toBe('500 micron')
+    expect(pressureReading(0.066661, { unit: 'micron', atmosphericKpa: 101.325 }).text).toBe('500 micron abs')
     expect(pressureText(1101.325, display)).toBe('1101.3 kPa abs (10.000 bar g)')
   })
 })
