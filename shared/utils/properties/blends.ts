@@ -87,7 +87,7 @@ export class BinaryMixture {
   /** Residual model at fixed composition x (for density and pressure). */
   residual(x: number[]): Residual {
     const { Tr, vr } = this.reducing(x)
-    const tmp = new Float64Array(4)
+    const tmp = new Float64Array(5)
     const M = x.reduce((s, xi, i) => s + xi * this.data[i]!.M, 0)
     return {
       R: this.R, M, Tr, rhor: 1 / vr,
@@ -95,7 +95,7 @@ export class BinaryMixture {
         out.fill(0)
         this.comps.forEach((c, i) => {
           alphar(c, tau, delta, tmp)
-          for (let k = 0; k < 4; k++) out[k]! += x[i]! * tmp[k]!
+          for (let k = 0; k < 5; k++) out[k]! += x[i]! * tmp[k]!
         })
         return out
       },
@@ -111,7 +111,7 @@ export class BinaryMixture {
   lnPhi(x: number[], T: number, rho: number): number[] {
     const { Tr, vr, nT, nv } = this.reducing(x)
     const tau = Tr / T, delta = rho * vr
-    const tmp = new Float64Array(4)
+    const tmp = new Float64Array(5)
     const ai: number[] = []
     let a1 = 0, a3 = 0
     this.comps.forEach((c, i) => {

@@ -100,9 +100,9 @@ const STATIC: Record<Designation, Static> = {
  */
 export const MIXTURE_CONSTANTS: Partial<Record<Designation, { crit: { T: number; p: number; rho: number }; Tmin: number; M: number }>> = {
   R508B: { crit: { T: 284.5371, p: 3816111, rho: 6043.911 }, Tmin: 173.1, M: 0.09539402 },
-  // R503 starts at −150 °C: its table reaches 3 K lower, and below R23's triple point (118.02 K) the model's
-  // bubble points no longer converge (the blend is far from azeotropic there).
-  R503: { crit: { T: 290.7295, p: 4207471, rho: 6376.557 }, Tmin: 123.15, M: 0.08724675 },
+  // R503 starts at −140 °C: its table reaches 3 K lower, and below about 130 K the model's bubble points no
+  // longer converge reliably from a cold start (the blend is far from azeotropic there).
+  R503: { crit: { T: 290.7295, p: 4207471, rho: 6376.557 }, Tmin: 133.15, M: 0.08724675 },
 }
 
 const K0 = 273.15

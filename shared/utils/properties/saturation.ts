@@ -153,7 +153,7 @@ export const uOf = (t: SatTable, T: number): number => Math.sqrt(Math.max(0, 1 -
 /** Temperature (K) of a u-coordinate. */
 export const tOf = (t: SatTable, u: number): number => t.Tc * (1 - u * u)
 
-const sc = new Float64Array(4)
+const sc = new Float64Array(5)
 
 /** Critical point of a (fixed-composition) residual model: (∂p/∂ρ)_T = (∂²p/∂ρ²)_T = 0, Newton with numerical Jacobian. */
 export function criticalPoint(e: Residual, T0: number, rho0: number): { T: number; p: number; rho: number } {
@@ -176,7 +176,7 @@ export function criticalPoint(e: Residual, T0: number, rho0: number): { T: numbe
   const a = e.alphar(tau, delta, sc)
   return { T, rho, p: rho * e.R * T * (1 + a[1]!) }
 }
-const sc2 = new Float64Array(4)
+const sc2 = new Float64Array(5)
 
 /**
  * Phase equilibrium of a pure fluid at T by Akasaka's (2008) Newton method: equal

@@ -8,7 +8,7 @@
  * - Otherwise liquid and vapour: the pressure is the saturation (dew) pressure and says nothing about
  *   the charge.
  */
-import { liquidDensity, pressure, vaporDensity } from './eos'
+import { liquidDensity, pressureAndIsochoricSlope, vaporDensity } from './eos'
 import { fmtC, fmtKpa, OutOfRangeError } from './errors'
 import type { Designation } from './fluids'
 import { fluidModel, type FluidModel } from './model'
@@ -84,22 +84,30 @@ function bubblePointOfIsochore(m: FluidModel, rhoMol: number): number | undefine
   return tOf(t, (lo + hi) / 2) - K0
 }
 
-/** Pressure (Pa) on the isochore ρ at T (K), in whichever phase the fill is there. */
-function isochorePressure(m: FluidModel, T: number, rhoMol: number): number {
+/**
+ * Pressure (Pa) on the isochore ρ at T (K), in whichever phase the fill is there, with the isochore's slope
+ * (Pa/K): analytic from the EOS in one phase, along the saturation curve while liquid and vapour coexist.
+ */
+function isochoreState(m: FluidModel, T: number, rhoMol: number): { p: number; dpdT: number } {
   const t = m.sat()
-  if (T >= t.Tc) return pressure(m.residual, T, rhoMol)
-  const { pDew, rhoV } = dewState(m, T)
-  if (rhoMol <= rhoV) return pressure(m.residual, T, rhoMol)
-  const rhoL = bubbleLiquidDensity(m, T)
-  if (rhoMol >= rhoL) return Math.max(pressure(m.residual, T, rhoMol), Math.exp(t.lnPb.at(uOf(t, T))))
-  return pDew
+  if (T < t.Tc) {
+    const { pDew, rhoV } = dewState(m, T)
+    if (rhoMol > rhoV) {
+      const pBubble = Math.exp(t.lnPb.at(uOf(t, T)))
+      if (rhoMol < bubbleLiquidDensity(m, T)) return { p: pDew, dpdT: saturationSlope(m, T) }
+      const [p, dpdT] = pressureAndIsochoricSlope(m.residual, T, rhoMol)
+      return { p: Math.max(p, pBubble), dpdT }
+    }
+  }
+  const [p, dpdT] = pressureAndIsochoricSlope(m.residual, T, rhoMol)
+  return { p, dpdT }
 }
 
-/** Slope of the isochore at T (kPa/K), by a central difference that stays inside the EOS range. */
-function isochoreSlope(m: FluidModel, T: number, rhoMol: number): number {
-  const h = 0.05
-  const lo = Math.max(m.Tmin, T - h), hi = Math.min(m.Tmax, T + h)
-  return (isochorePressure(m, hi, rhoMol) - isochorePressure(m, lo, rhoMol)) / (hi - lo) / 1000
+/** Slope of the (dew) saturation curve at T below Tc, Pa/K, from the table by a small difference. */
+function saturationSlope(m: FluidModel, T: number): number {
+  const t = m.sat()
+  const h = Math.min(0.01, Math.max(1e-6, (t.Tc - T) / 2))
+  return (Math.exp(t.lnPd.at(uOf(t, T + h))) - Math.exp(t.lnPd.at(uOf(t, T)))) / h
 }
 
 function liquidFullWarning(m: FluidModel, T: number, densityKgM3: number, rhoLKgM3: number, pKpa: number, pSatKpa: number, kpaPerK: number): string {
@@ -116,9 +124,9 @@ function standingAt(m: FluidModel, T: number, rhoMol: number, volumeL: number): 
   const chargeG = densityKgM3 * volumeL
   const t = m.sat()
   const fill = `fill density ${densityKgM3.toFixed(1)} kg/m³`
-  const kpaPerK = isochoreSlope(m, T, rhoMol)
   if (T >= t.Tc) {
-    const pressureKpa = pressure(m.residual, T, rhoMol) / 1000
+    const [p, dpdT] = pressureAndIsochoricSlope(m.residual, T, rhoMol)
+    const pressureKpa = p / 1000, kpaPerK = dpdT / 1000
     const warnings = pressureKpa > t.pc / 1000
       ? [`${fmtKpa(pressureKpa)} abs is above ${m.d}'s critical pressure (${fmtKpa(t.pc / 1000)}): far more than a stage normally holds at standstill, rising about ${fmtKpa(kpaPerK)} per kelvin. Check the charge and the volume, and compare with the stage's design pressure.`]
       : []
@@ -129,8 +137,9 @@ function standingAt(m: FluidModel, T: number, rhoMol: number, volumeL: number): 
   }
   const { pDew, rhoV } = dewState(m, T)
   if (rhoMol <= rhoV) {
+    const [p, dpdT] = pressureAndIsochoricSlope(m.residual, T, rhoMol)
     return {
-      pressureKpa: pressure(m.residual, T, rhoMol) / 1000, chargeG, densityKgM3, phase: 'gas', warnings: [], kpaPerK,
+      pressureKpa: p / 1000, chargeG, densityKgM3, phase: 'gas', warnings: [], kpaPerK: dpdT / 1000,
       saturationPressureKpa: pDew / 1000,
       note: `All gas at ${fmtC(T - K0)}: the standing pressure tracks the charge (${fill}).`,
     }
@@ -139,7 +148,8 @@ function standingAt(m: FluidModel, T: number, rhoMol: number, volumeL: number): 
   const pBubble = Math.exp(t.lnPb.at(uOf(t, T)))
   const saturatedLiquidDensityKgM3 = rhoL * M
   if (rhoMol >= rhoL) {
-    const pressureKpa = Math.max(pressure(m.residual, T, rhoMol), pBubble) / 1000
+    const [p, dpdT] = pressureAndIsochoricSlope(m.residual, T, rhoMol)
+    const pressureKpa = Math.max(p, pBubble) / 1000, kpaPerK = dpdT / 1000
     return {
       pressureKpa, chargeG, densityKgM3, phase: 'liquid', kpaPerK, saturationPressureKpa: pBubble / 1000, saturatedLiquidDensityKgM3,
       warnings: [liquidFullWarning(m, T, densityKgM3, saturatedLiquidDensityKgM3, pressureKpa, pBubble / 1000, kpaPerK)],
@@ -156,7 +166,7 @@ function standingAt(m: FluidModel, T: number, rhoMol: number, volumeL: number): 
     ? [`Near liquid-full: at ${fmtC(liquidFull)} ambient the liquid would fill the whole volume and the pressure would then rise steeply. Keep the stage cool and recover refrigerant down to the planned charge.`]
     : []
   return {
-    pressureKpa: pDew / 1000, chargeG, densityKgM3, phase: 'two-phase', note: base + advice, warnings, kpaPerK,
+    pressureKpa: pDew / 1000, chargeG, densityKgM3, phase: 'two-phase', note: base + advice, warnings, kpaPerK: saturationSlope(m, T) / 1000,
     saturationPressureKpa: pDew / 1000, saturatedLiquidDensityKgM3,
     ...(warm !== undefined ? { warmAboveC: warm } : {}),
     ...(liquidFull !== undefined ? { liquidFullAboveC: liquidFull } : {}),
@@ -244,22 +254,34 @@ export function shiftStandingPressure(i: { designation: Designation; referencePr
   return { ...now, chargeG: 0, referenceDensityKgM3: ref.densityKgM3, note: caveat + now.note }
 }
 
+/** Highest ambient the design-pressure search looks at: far above any plant room or summer van (°C). */
+export const AMBIENT_SEARCH_LIMIT_C = 100
+
 /**
  * The ambient (°C) at which a fill of `densityKgM3` reaches `pressureKpa` (absolute) on warming, searched from
- * `fromC` up to the top of the EOS range; undefined if it never does there. Pressure along an isochore
- * rises with temperature in every phase, so a bisection finds it.
+ * `fromC` up to 100 °C (or the top of the EOS range); undefined if it does not get there. Pressure along an
+ * isochore rises with temperature in every phase, so a bracketing search finds it.
  */
 export function ambientAtStandingPressure(designation: Designation, densityKgM3: number, pressureKpa: number, fromC: number): number | undefined {
   const m = fluidModel(designation)
   const rho = densityKgM3 / m.residual.M
   const target = pressureKpa * 1000
-  let lo = stateT(m, fromC), hi = m.Tmax
-  if (isochorePressure(m, lo, rho) >= target) return lo - K0
-  if (isochorePressure(m, hi, rho) < target) return undefined
-  for (let k = 0; k < 60 && hi - lo > 1e-4; k++) {
-    const mid = (lo + hi) / 2
-    if (isochorePressure(m, mid, rho) < target) lo = mid
-    else hi = mid
+  let lo = stateT(m, fromC)
+  let hi = Math.min(m.Tmax, AMBIENT_SEARCH_LIMIT_C + K0)
+  let s = isochoreState(m, lo, rho)
+  if (s.p >= target) return lo - K0
+  if (hi <= lo || isochoreState(m, hi, rho).p < target) return undefined
+  // Newton on the isochore's own slope, kept inside the bracket (bisection when a step leaves it): an
+  // isochore is close to straight, so a few evaluations reach a millikelvin.
+  let T = lo
+  for (let k = 0; k < 60; k++) {
+    let next = s.dpdT > 0 ? T + (target - s.p) / s.dpdT : NaN
+    if (!(next > lo && next < hi)) next = (lo + hi) / 2
+    s = isochoreState(m, next, rho)
+    if (s.p < target) lo = next
+    else hi = next
+    if (Math.abs(next - T) < 1e-4 || hi - lo < 1e-4) return next - K0
+    T = next
   }
-  return (lo + hi) / 2 - K0
+  return T - K0
 }

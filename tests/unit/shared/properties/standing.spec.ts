@@ -27,6 +27,15 @@ describe('standing pressure from charge (isochores)', () => {
     })
   }
 
+  it('slope of the isochore: ethane at 30 kg/m³ and 20 °C rises 10.02 kPa/K, not the 6.80 kPa/K of p/T (Bücker & Wagner 2006 EOS via CoolProp 8.0.0)', () => {
+    const r = standingPressureFromCharge({ designation: 'R170', ambientC: 20, volumeL: 10, chargeG: 300 })
+    expect(r.kpaPerK).toBeCloseTo(10.02, 1)
+    // CO2 carries non-analytic terms: its slope must match a difference of the pressures it reports.
+    const co2 = (c: number) => standingPressureFromCharge({ designation: 'R744', ambientC: c, volumeL: 1, chargeG: 100 }).pressureKpa
+    const slope = standingPressureFromCharge({ designation: 'R744', ambientC: 35, volumeL: 1, chargeG: 100 }).kpaPerK
+    expect(slope).toBeCloseTo((co2(35.01) - co2(34.99)) / 0.02, 2)
+  })
+
   it('half the charge gives about 55 %, not 50 %, of the standing pressure (ethane, 20 °C; Bücker & Wagner 2006 EOS via CoolProp 8.0.0)', () => {
     const full = standingPressureFromCharge({ designation: 'R170', ambientC: 20, volumeL: 10, chargeG: 300 }).pressureKpa
     const half = standingPressureFromCharge({ designation: 'R170', ambientC: 20, volumeL: 10, chargeG: 150 }).pressureKpa
@@ -189,6 +198,9 @@ describe('supercritical stages', () => {
     const c = ambientAtStandingPressure('R1150', 153.8 / 12, 1082.3, 22)
     expect(c).toBeCloseTo(30, 1)
     expect(ambientAtStandingPressure('R1150', 153.8 / 12, 500, 22)).toBe(22) // already above at 22 °C
-    expect(ambientAtStandingPressure('R1150', 153.8 / 12, 1e6, 22)).toBeUndefined() // never within the EOS range
+    expect(ambientAtStandingPressure('R1150', 153.8 / 12, 1e6, 22)).toBeUndefined() // not reached by 100 °C
+    // It stands at 1364.1 kPa abs at 100 °C: 1300 kPa is reached at 84 °C, 1400 kPa only beyond the search limit.
+    expect(ambientAtStandingPressure('R1150', 153.8 / 12, 1300, 22)).toBeCloseTo(84.0, 0)
+    expect(ambientAtStandingPressure('R1150', 153.8 / 12, 1400, 22)).toBeUndefined()
   })
 })
