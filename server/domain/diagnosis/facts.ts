@@ -358,7 +358,8 @@ function standingFacts(ctx: StageContext, c: Collector): void {
     const est = c.attempt(`${stage} charge from standing pressure`, () =>
       props.chargeFromStandingPressure({ designation: d, ambientC: ambient, volumeL, pressureKpa: measured }),
     )
-    if (est) c.set(f('standingChargePercent'), (est.chargeG / chargeG) * 100)
+    // A reading at or above the saturation pressure does not measure a gas charge (liquid, air or another gas).
+    if (est && (est.phase === 'gas' || est.phase === 'supercritical')) c.set(f('standingChargePercent'), (est.chargeG / chargeG) * 100)
   }
 }
 
