@@ -2,13 +2,63 @@
  * What the calculator's charge-planning cards show, computed in the browser from typed text with the same
  * shared modules the API runs (no round trip). Pure functions, unit-tested without a page.
  */
+import type { ZodType } from 'zod'
 import { ChargingBodySchema, SubstitutionBodySchema } from '#shared/schemas/charging'
 import type { ChargingDto, SubstitutionDto } from '#shared/types/charging-dto'
+import type { UnitStageDto } from '#shared/types/equipment-dto'
 import { chargingCheck, substitutionPlan } from '#shared/utils/calculator'
 import type { SubstitutionBasis } from '#shared/utils/charging'
-import { toKpaAbs, type Designation, type PressureUnit } from '#shared/utils/properties'
+import { findRefrigerant, toKpaAbs, type Designation, type PressureUnit } from '#shared/utils/properties'
 import { propertyProblem } from './calculatorViews'
 import { parseDecimal } from './figures'
+
+/** A card's answer: field errors beside the inputs, the result once it computes, or the models' refusal in their words. */
+export interface FormView<F extends string, R> {
+  errors: Partial<Record<F, string>>
+  result?: R
+  problem?: string
+}
+
+/** Reads typed numbers, noting bad ones in `errors`; undefined for an empty or invalid field. */
+function reader<F extends string>(errors: Partial<Record<F, string>>) {
+  return (field: F, text: string): number | undefined => {
+    const typed = parseDecimal(text)
+    if (typed.state === 'invalid') errors[field] = typed.message
+    return typed.state === 'ok' ? typed.value : undefined
+  }
+}
+
+/**
+ * Checks `body` with the route's own schema (issues go beside the fields `fieldOf` names) and computes the
+ * answer; property errors become the view's problem.
+ */
+function checkedView<F extends string, T, R>(errors: Partial<Record<F, string>>, schema: ZodType<T>, body: unknown, fieldOf: Record<string, F>, compute: (input: T) => R): FormView<F, R> {
+  const parsed = schema.safeParse(body)
+  if (!parsed.success) {
+    let unplaced: string | undefined
+    for (const issue of parsed.error.issues) {
+      const field = fieldOf[issue.path.map(String).join('.')]
+      if (field) errors[field] ??= issue.message
+      else unplaced ??= issue.message
+    }
+    return unplaced ? { errors, problem: unplaced } : { errors }
+  }
+  try {
+    return { errors, result: compute(parsed.data) }
+  } catch (error) {
+    return { errors, problem: propertyProblem(error) }
+  }
+}
+
+/** What a picked unit stage brings to a card: its refrigerant (when known), nameplate charge and volume as typed text. */
+export function stageFields(stage: UnitStageDto): { designation?: Designation; chargeG: string; volumeL: string } {
+  const known = findRefrigerant(stage.refrigerant)
+  return {
+    ...(known ? { designation: known.designation } : {}),
+    chargeG: stage.chargeG !== null ? String(stage.chargeG) : '',
+    volumeL: stage.volumeL !== null ? String(stage.volumeL) : '',
+  }
+}
 
 export interface SubstitutionForm {
   from: Designation
@@ -25,32 +75,7 @@ export interface SubstitutionForm {
   displayUnit: PressureUnit
 }
 export type SubstitutionField = 'chargeG' | 'volumeL' | 'ambientC' | 'evaporatingC' | 'condensingC' | 'designPressure'
-export interface SubstitutionView {
-  errors: Partial<Record<SubstitutionField, string>>
-  result?: SubstitutionDto
-  /** A state the models refuse (ambient outside the range…), in their words. */
-  problem?: string
-}
-
-/** Reads typed numbers into `errors`; undefined for an empty or invalid field. */
-function reader<F extends string>(errors: Partial<Record<F, string>>) {
-  return (field: F, text: string): number | undefined => {
-    const typed = parseDecimal(text)
-    if (typed.state === 'invalid') errors[field] = typed.message
-    return typed.state === 'ok' ? typed.value : undefined
-  }
-}
-
-/** Puts schema issues beside the form fields they belong to. */
-function placeIssues<F extends string>(issues: { path: PropertyKey[]; message: string }[], fieldOf: Record<string, F>, errors: Partial<Record<F, string>>): string | undefined {
-  let unplaced: string | undefined
-  for (const issue of issues) {
-    const field = fieldOf[issue.path.map(String).join('.')]
-    if (field) errors[field] ??= issue.message
-    else unplaced ??= issue.message
-  }
-  return unplaced
-}
+export type SubstitutionView = FormView<SubstitutionField, SubstitutionDto>
 
 const SUBSTITUTION_FIELDS: Record<string, SubstitutionField> = {
   'from.chargeG': 'chargeG', volumeL: 'volumeL', ambientC: 'ambientC', evaporatingC: 'evaporatingC', condensingC: 'condensingC', designPressureKpa: 'designPressure',
@@ -71,19 +96,11 @@ export function substitutionView(form: SubstitutionForm, atmosphereKpa: number):
     errors.designPressure = propertyProblem(error)
   }
   if (n.chargeG === undefined || n.volumeL === undefined || n.ambientC === undefined) return { errors }
-  const parsed = SubstitutionBodySchema.safeParse({
+  const body = {
     volumeL: n.volumeL, ambientC: n.ambientC, from: { designation: form.from, chargeG: n.chargeG }, to: form.to, basis: form.basis,
     evaporatingC: n.evaporatingC, condensingC: n.condensingC, designPressureKpa, unit: form.displayUnit, atmosphericKpa: atmosphereKpa,
-  })
-  if (!parsed.success) {
-    const unplaced = placeIssues(parsed.error.issues, SUBSTITUTION_FIELDS, errors)
-    return unplaced ? { errors, problem: unplaced } : { errors }
   }
-  try {
-    return { errors, result: substitutionPlan(parsed.data) }
-  } catch (error) {
-    return { errors, problem: propertyProblem(error) }
-  }
+  return checkedView(errors, SubstitutionBodySchema, body, SUBSTITUTION_FIELDS, substitutionPlan)
 }
 
 /** A planned charge handed from the substitution planner to the charging card. */
@@ -101,11 +118,7 @@ export interface ChargingForm {
   startG: string
 }
 export type ChargingField = 'targetG' | 'volumeL' | 'ambientC' | 'pressure' | 'addedG' | 'startG'
-export interface ChargingView {
-  errors: Partial<Record<ChargingField, string>>
-  result?: ChargingDto
-  problem?: string
-}
+export type ChargingView = FormView<ChargingField, ChargingDto>
 
 const CHARGING_FIELDS: Record<string, ChargingField> = {
   targetChargeG: 'targetG', volumeL: 'volumeL', ambientC: 'ambientC', pressure: 'pressure', addedG: 'addedG', startG: 'startG', unit: 'pressure',
@@ -121,18 +134,10 @@ export function chargingView(form: ChargingForm, atmosphereKpa: number): Chargin
   }
   const reading = form.by === 'pressure' ? n.pressure : n.addedG
   if (n.targetG === undefined || n.volumeL === undefined || n.ambientC === undefined || reading === undefined) return { errors }
-  const parsed = ChargingBodySchema.safeParse({
+  const body = {
     designation: form.designation, targetChargeG: n.targetG, volumeL: n.volumeL, ambientC: n.ambientC,
     ...(form.by === 'pressure' ? { pressure: n.pressure } : { addedG: n.addedG, startG: n.startG ?? 0 }),
     unit: form.pressureUnit, atmosphericKpa: atmosphereKpa,
-  })
-  if (!parsed.success) {
-    const unplaced = placeIssues(parsed.error.issues, CHARGING_FIELDS, errors)
-    return unplaced ? { errors, problem: unplaced } : { errors }
   }
-  try {
-    return { errors, result: chargingCheck(parsed.data) }
-  } catch (error) {
-    return { errors, problem: propertyProblem(error) }
-  }
+  return checkedView(errors, ChargingBodySchema, body, CHARGING_FIELDS, chargingCheck)
 }
