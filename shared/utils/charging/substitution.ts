@@ -81,7 +81,7 @@ export interface RunningHeadEstimate {
 }
 
 export interface SubstitutionResult {
-  /** Top-level fields are the chosen basis's plan (contract fields first). */
+  /** Top-level fields are the chosen basis's plan (the public fields first). */
   basis: SubstitutionBasis
   chargeG: number
   standingPressureKpa: number

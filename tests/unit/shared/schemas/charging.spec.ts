@@ -5,7 +5,7 @@ const fields = (r: { success: boolean; error?: { issues: { path: PropertyKey[] }
 const sub = { volumeL: 12, ambientC: 22, from: { designation: 'R13', chargeG: 600 }, to: 'R1150', basis: 'standing-pressure' }
 
 describe('SubstitutionBodySchema', () => {
-  it('accepts the contract body and defaults the display to kPag at sea level', () => {
+  it('accepts the documented body and defaults the display to kPag at sea level', () => {
     expect(SubstitutionBodySchema.parse(sub)).toMatchObject({ basis: 'standing-pressure', display: { unit: 'kPag', atmosphericKpa: 101.325 } })
   })
 
