@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import {
-  ABOVE_CRITICAL_AT_AMBIENT, ambientAtStandingPressure, chargeFromStandingPressure, OutOfRangeError, shiftStandingPressure, standingPressureFromCharge,
+  ABOVE_CRITICAL_AT_AMBIENT, ambientAtStandingPressure, chargeFromStandingPressure, OutOfRangeError, saturatedLiquidDensity, shiftStandingPressure, standingPressureFromCharge,
   type Designation,
 } from '#shared/utils/properties'
 
@@ -202,5 +202,15 @@ describe('supercritical stages', () => {
     // It stands at 1364.1 kPa abs at 100 °C: 1300 kPa is reached at 84 °C, 1400 kPa only beyond the search limit.
     expect(ambientAtStandingPressure('R1150', 153.8 / 12, 1300, 22)).toBeCloseTo(84.0, 0)
     expect(ambientAtStandingPressure('R1150', 153.8 / 12, 1400, 22)).toBeUndefined()
+  })
+})
+
+describe('saturated liquid density of blends (bubble-point liquid; CoolProp 8.0.0: Lemmon 2003 pseudo-pure EOS, R23/R116 mixture model)', () => {
+  it('R404A 1149.98, R410A 1169.95, R508B 982.997 kg/m³ at 0 °C; just above it the fill is liquid-full', () => {
+    for (const [d, rho] of [['R404A', 1149.98], ['R410A', 1169.95], ['R508B', 982.997]] as const) {
+      expect(Math.abs(saturatedLiquidDensity(d, 0) / rho - 1), d).toBeLessThan(0.001)
+      expect(standingPressureFromCharge({ designation: d, ambientC: 0, volumeL: 1, chargeG: rho * 1.01 }).phase, d).toBe('liquid')
+      expect(standingPressureFromCharge({ designation: d, ambientC: 0, volumeL: 1, chargeG: rho * 0.99 }).phase, d).toBe('two-phase')
+    }
   })
 })
