@@ -98,7 +98,7 @@ export const pressureContextFields = {
   altitudeM: bodyNumber('altitudeM').min(-500, ALTITUDE_MIN).max(11_000, ALTITUDE_MAX).optional(),
   atmosphericKpa: bodyNumber('atmosphericKpa').min(1, ATMOSPHERE_MIN).max(120, ATMOSPHERE_MAX).optional(),
   designPressureKpa: bodyNumber('designPressureKpa (kPa, absolute)').positive('The design pressure must be above 0 kPa absolute').max(1_000_000, 'The design pressure must be at most 1 000 000 kPa').optional(),
-  designPressure: bodyNumber('designPressure').optional(),
+  designPressure: bodyNumber('designPressure').min(-1_000_000, 'designPressure must be at least −1 000 000').max(1_000_000, 'designPressure must be at most 1 000 000').optional(),
 }
 
 interface PressureContextBody {

@@ -77,6 +77,7 @@ export function toKpaAbs(value: number, unit: string, atmosphericKpa: number = S
     Pa: value / 1000,
     inHgV: atmosphericKpa - value * KPA_PER_INHG,
   }[unit]
+  if (!Number.isFinite(abs)) throw new OutOfRangeError(`${value} ${unit} is too large to be a pressure; check the unit.`, { minC: -273.15, maxC: Infinity, minKpa: 0 })
   // A gauge reading below −1 atm (or a negative absolute one) is not physical: likely a sign or unit slip.
   if (abs < 0) throw new OutOfRangeError(`${value} ${unit} is below a perfect vacuum (0 kPa absolute); check the sign and the unit.`, { minC: -273.15, maxC: Infinity, minKpa: 0 })
   return abs

@@ -26,6 +26,7 @@ describe('pressure units (definitions: 1 bar = 100 kPa, 1 psi = 6.894757 kPa, 1 
     expect(() => toKpaAbs(Number.NaN, 'kPa')).toThrow(UnitError)
     expect(() => toKpaAbs(Infinity, 'kPa')).toThrow(UnitError)
     expect(() => toKpaAbs(-200, 'kPag')).toThrow(OutOfRangeError)
+    expect(() => toKpaAbs(1e308, 'psig')).toThrow(OutOfRangeError) // overflows to Infinity
   })
 })
 
