@@ -97,9 +97,17 @@ export interface SubstitutionResult {
   to: { designation: Designation; name: string; safetyClass: string; cautions: string[] }
   plans: SubstitutionPlan[]
   runningHead: RunningHeadEstimate
+  /**
+   * Where the chosen charge stands at other room temperatures, for the label on the unit and for a re-check
+   * on another day (empty when the charge is partly liquid at ambient and pressure cannot measure it).
+   */
+  standingByAmbient: { ambientC: number; pressureKpa: number; reading: PressureReading }[]
   /** Things to do that are not dangers: relabelling, oil, logging. */
   notes: string[]
 }
+
+/** Room temperatures of the standing-pressure table printed with a plan (°C). */
+export const LABEL_AMBIENTS_C = [10, 15, 20, 25, 30, 35] as const
 
 const info = (d: Designation): RefrigerantInfo => findRefrigerant(d)!
 const grams = (g: number) => `${g >= 100 ? g.toFixed(0) : g.toFixed(1)} g`
@@ -134,8 +142,23 @@ export function planSubstitution(input: SubstitutionInput): SubstitutionResult {
     to: { designation: toInfo.designation, name: toInfo.name, safetyClass: toInfo.safetyClass, cautions: toInfo.cautions },
     plans,
     runningHead,
+    standingByAmbient: chosen.chargeTo ? standingTable(input, chosen.chargeG) : [],
     notes: notesFor(fromInfo, toInfo),
   }
+}
+
+/** The chosen charge's standing pressure across ordinary room temperatures (those inside the EOS range). */
+function standingTable(input: SubstitutionInput, chargeG: number): SubstitutionResult['standingByAmbient'] {
+  const out: SubstitutionResult['standingByAmbient'] = []
+  for (const ambientC of LABEL_AMBIENTS_C) {
+    try {
+      const r = standingPressureFromCharge({ designation: input.to, ambientC, volumeL: input.volumeL, chargeG })
+      out.push({ ambientC, pressureKpa: r.pressureKpa, reading: pressureReading(r.pressureKpa, input.display) })
+    } catch (error) {
+      if (!(error instanceof OutOfRangeError)) throw error
+    }
+  }
+  return out
 }
 
 interface PlanContext {

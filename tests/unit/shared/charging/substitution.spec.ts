@@ -47,6 +47,14 @@ describe('R13 low stage refilled with R1150: 12 L, 600 g nameplate, 22 °C', () 
     expect(r.explanation).toMatch(/0\.391 L of saturated liquid/)
   })
 
+  it('tabulates where the chosen charge stands from 10 to 35 °C: 12.818 kg/m³ of R1150 stands at 1082.3 kPa abs at 30 °C', () => {
+    const r = plan()
+    expect(r.standingByAmbient.map((x) => x.ambientC)).toEqual([10, 15, 20, 25, 30, 35])
+    expect(r.standingByAmbient.find((x) => x.ambientC === 30)!.pressureKpa).toBeCloseTo(1082.27, 0) // CoolProp 8.0.0
+    // Rising with the room, as an isochore does.
+    for (let i = 1; i < r.standingByAmbient.length; i++) expect(r.standingByAmbient[i]!.pressureKpa).toBeGreaterThan(r.standingByAmbient[i - 1]!.pressureKpa)
+  })
+
   it('shows all three bases side by side, each explained', () => {
     const r = plan()
     expect(r.plans.map((p) => p.basis)).toEqual(['standing-pressure', 'mass', 'liquid-volume'])
