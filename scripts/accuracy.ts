@@ -6,8 +6,8 @@
  * Run: npm run accuracy
  */
 import { existsSync, readFileSync, writeFileSync } from 'node:fs'
-import { DESIGNATIONS, findRefrigerant, gasDensity, saturationTemperature } from '../shared/utils/properties/index'
-import { GAS_DENSITY, SATURATION } from '../tests/unit/shared/properties/reference-points'
+import { DESIGNATIONS, findRefrigerant, gasDensity, saturationPressure, saturationTemperature } from '../shared/utils/properties/index'
+import { GAS_DENSITY, INDEPENDENT, SATURATION } from '../tests/unit/shared/properties/reference-points'
 
 const rows: string[] = [
   '| Fluid | Sat. points (0.5 ≤ T/Tc ≤ 0.95) | Max \\|ΔT\\| K | Density points | Max \\|Δρ\\| % | Reference |',
@@ -26,6 +26,21 @@ for (const d of DESIGNATIONS) {
   let dRho = 0
   for (const p of dens) dRho = Math.max(dRho, Math.abs(gasDensity(d, p.c, p.kpa) / p.rho - 1) * 100)
   rows.push(`| ${d} | ${pts.length} | ${pts.length ? dT.toFixed(3) : '–'} | ${dens.length || '–'} | ${dens.length ? dRho.toFixed(3) : '–'} | ${SATURATION[d].source} |`)
+}
+rows.push(
+  '',
+  'Cross-checks against sources that do not share the equation of state (saturation pressure; temperature error at the same pressure):',
+  '',
+  '| Fluid | Independent source | Points | Max \\|Δp\\| % | Max \\|ΔT\\| K |',
+  '|---|---|---|---|---|',
+)
+for (const check of INDEPENDENT) {
+  let dp = 0, dT = 0
+  for (const p of check.sat) {
+    dp = Math.max(dp, Math.abs(saturationPressure(check.d, p.c).bubbleKpa / p.kpa - 1) * 100)
+    dT = Math.max(dT, Math.abs(saturationTemperature(check.d, p.kpa).bubbleC - p.c))
+  }
+  rows.push(`| ${check.d} | ${check.source} | ${check.sat.length} | ${dp.toFixed(2)} | ${dT.toFixed(2)} |`)
 }
 const table = rows.join('\n')
 console.log(table)

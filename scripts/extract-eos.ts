@@ -30,6 +30,11 @@ const CITATIONS: Record<string, string> = {
   'Kamei-IJT-1995': 'Kamei, Beyerlein & Jacobsen 1995, Int. J. Thermophys. (R22 EOS)',
   'Span-JPCRD-1996': 'Span & Wagner 1996, J. Phys. Chem. Ref. Data (CO2 reference EOS)',
   'Gao-JPCRD-2020': 'Gao et al. 2020, J. Phys. Chem. Ref. Data (ammonia reference EOS)',
+  'Marx-BOOK-1992': 'Marx, Pruß & Wagner 1992, VDI Fortschritt-Berichte 19/57 (R12 reference EOS)',
+}
+/** Platzer, Polt & Maurer's book gives equations for several refrigerants under one key: name the fluid. */
+const CITATION_BY_FLUID: Record<string, string> = {
+  R13: 'Platzer, Polt & Maurer 1990, Thermophysical Properties of Refrigerants (R13 EOS)',
 }
 
 type Json = Record<string, unknown>
@@ -64,7 +69,7 @@ for (const file of readdirSync(SRC).filter((f) => f.endsWith('.json')).sort()) {
   const pseudoPure = eos.pseudo_pure as boolean
   const data: EosData = {
     designation,
-    source: `${CITATIONS[bib] ?? bib}; coefficients as distributed in CoolProp 8.0.0 (MIT licence)`,
+    source: `${CITATION_BY_FLUID[designation] ?? CITATIONS[bib] ?? bib}; coefficients as distributed in CoolProp 8.0.0 (MIT licence)`,
     R: eos.gas_constant as number,
     M: eos.molar_mass as number,
     Tr: red.T as number,

@@ -5,7 +5,7 @@
 import { StandingPressureBodySchema } from '#shared/schemas/properties'
 import type { StandingFromChargeDto, StandingFromPressureDto, StandingShiftDto } from '#shared/types/properties-dto'
 import { saturationAtPressure, saturationAtTemperature, standingCheck } from '#shared/utils/calculator'
-import { OutOfRangeError, UnitError, atmosphericPressureAtAltitude, toCelsius, toKpaAbs, type PressureUnit, type RefrigerantInfo, type TemperatureUnit } from '#shared/utils/properties'
+import { OutOfRangeError, UnitError, UnknownRefrigerantError, atmosphericPressureAtAltitude, toCelsius, toKpaAbs, type PressureUnit, type RefrigerantInfo, type TemperatureUnit } from '#shared/utils/properties'
 import { STANDARD_ATMOSPHERE_KPA } from '#shared/utils/properties/units'
 import { parseDecimal } from './figures'
 
@@ -21,11 +21,13 @@ export type SaturationView =
   | { state: 'invalid'; message: string }
   | { state: 'ok'; inputKpa?: number; rows: SaturationRow[]; glideK?: number }
 
-/** Property errors are the user's input being out of range: show their message, rethrow anything else. */
-function asInvalid(error: unknown): { state: 'invalid'; message: string } {
-  if (error instanceof OutOfRangeError || error instanceof UnitError) return { state: 'invalid', message: error.message }
+/** Property errors are the user's input being out of range (or naming no known refrigerant): their message; anything else is rethrown. */
+export function propertyProblem(error: unknown): string {
+  if (error instanceof OutOfRangeError || error instanceof UnitError || error instanceof UnknownRefrigerantError) return error.message
   throw error
 }
+
+const asInvalid = (error: unknown): { state: 'invalid'; message: string } => ({ state: 'invalid', message: propertyProblem(error) })
 
 /** Saturation pressure(s) for a typed temperature. */
 export function pressureFromTemperature(info: RefrigerantInfo, text: string, unit: TemperatureUnit): SaturationView {

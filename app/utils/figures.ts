@@ -3,7 +3,7 @@
  * typographic minus or spaces between thousands; figures shown always carry their unit, and pressures
  * always say whether they are absolute or gauge.
  */
-import type { PressureUnit, TemperatureUnit } from '#shared/utils/properties'
+import { PRESSURE_UNIT_LABELS, type AnyPressureUnit, type TemperatureUnit } from '#shared/utils/properties'
 
 export type ParsedDecimal = { state: 'empty' } | { state: 'ok'; value: number } | { state: 'invalid'; message: string }
 
@@ -36,16 +36,8 @@ export interface UnitLabel {
   decimals: number
 }
 
-/** Pressure units: the short label says absolute or gauge in every case. */
-export const PRESSURE_LABELS: Record<PressureUnit, UnitLabel & { gauge: boolean }> = {
-  kPa: { short: 'kPa abs', long: 'kPa absolute', decimals: 1, gauge: false },
-  kPag: { short: 'kPag', long: 'kPa gauge (kPag)', decimals: 1, gauge: true },
-  bar: { short: 'bar abs', long: 'bar absolute', decimals: 3, gauge: false },
-  barg: { short: 'bar g', long: 'bar gauge (barg)', decimals: 3, gauge: true },
-  psia: { short: 'psia', long: 'psi absolute (psia)', decimals: 1, gauge: false },
-  psig: { short: 'psig', long: 'psi gauge (psig)', decimals: 1, gauge: true },
-  MPa: { short: 'MPa abs', long: 'MPa absolute', decimals: 4, gauge: false },
-}
+/** Pressure units (gauge, absolute and vacuum): the short label says absolute, gauge or vacuum in every case. */
+export const PRESSURE_LABELS: Readonly<Record<AnyPressureUnit, UnitLabel & { gauge: boolean }>> = PRESSURE_UNIT_LABELS
 
 /** Temperature units as shown beside figures and in pickers. */
 export const TEMPERATURE_LABELS: Record<TemperatureUnit, UnitLabel> = {

@@ -1,6 +1,8 @@
 // Plain labels for the vocabulary words the API uses. The words themselves stay as they are on
 // the wire; these are only what a technician reads.
 import type { Quantity, Stage, Symptom } from '#shared/types/diagnosis'
+import type { SubstitutionBasis } from '#shared/utils/charging'
+import { ABOVE_CRITICAL_AT_AMBIENT, type StandingPhase } from '#shared/utils/properties'
 
 export const STAGE_LABELS: Record<Stage, string> = { high: 'High stage', low: 'Low stage', single: 'Single stage' }
 
@@ -49,4 +51,19 @@ export function unitSymbol(unit: string): string {
 /** Human label of a cause slug when no title is at hand. */
 export function causeLabel(slug: string): string {
   return slug.replaceAll('-', ' ').replace(/^./, (c) => c.toUpperCase())
+}
+
+/** What the phase of a standing charge means for the technician, one line each. */
+export const PHASE_LABELS: Record<StandingPhase, string> = {
+  gas: 'All gas: the standing pressure measures the charge',
+  'two-phase': 'Liquid present (two-phase): the pressure is the saturation pressure',
+  liquid: 'LIQUID-FULL: compressed liquid fills the stage',
+  supercritical: ABOVE_CRITICAL_AT_AMBIENT.charAt(0).toUpperCase() + ABOVE_CRITICAL_AT_AMBIENT.slice(1),
+}
+
+/** The three ways of planning a substitute charge, as headings. */
+export const BASIS_LABELS: Record<SubstitutionBasis, string> = {
+  'standing-pressure': 'Same standing pressure',
+  mass: 'Same mass',
+  'liquid-volume': 'Same liquid volume',
 }

@@ -17,9 +17,10 @@ const STATUS: [new (...args: never[]) => Error, number, string][] = [
 
 /** Extra data a client can act on: the valid range of an out-of-range input, the allowed units. */
 function dataOf(error: Error): Record<string, unknown> | undefined {
-  if (error instanceof OutOfRangeError && error.range) {
+  if (error instanceof OutOfRangeError && (error.range || error.field)) {
     // Infinity is not JSON; an open end of a range is simply left out.
-    return { range: Object.fromEntries(Object.entries(error.range).filter(([, v]) => Number.isFinite(v))) }
+    const range = error.range ? { range: Object.fromEntries(Object.entries(error.range).filter(([, v]) => Number.isFinite(v))) } : {}
+    return { ...range, ...(error.field ? { fieldErrors: { [error.field]: [error.message] } } : {}) }
   }
   if (error instanceof UnitError) return { allowed: error.allowed, fieldErrors: { unit: [error.message] } }
   // Field-tied errors carry the same `fieldErrors` shape as a 400, so forms place them beside the field.

@@ -231,7 +231,7 @@ export interface StageDerived {
   expectedStandingPressureKpa?: number
   standingPercentOfExpected?: number
   standingChargePercent?: number
-  standingPhase?: 'gas' | 'two-phase' | 'supercritical'
+  standingPhase?: 'gas' | 'two-phase' | 'liquid' | 'supercritical'
   currentPercentOfRated?: number
   refrigerantFitK?: number
   bestFitRefrigerant?: string

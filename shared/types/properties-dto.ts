@@ -1,13 +1,15 @@
-import type { PressureUnit, RefrigerantInfo, StandingPhase, TemperatureUnit } from '#shared/utils/properties'
+import type { PressureReading } from '#shared/utils/charging/readings'
+import type { AnyPressureUnit, RefrigerantInfo, StandingPhase, TemperatureUnit } from '#shared/utils/properties'
 
 /** A refrigerant as `GET /api/refrigerants` returns it (contract fields plus the catalogue's extras). */
 export type RefrigerantDto = RefrigerantInfo
 
-/** The reading as the caller typed it, when it came with a unit (`?pressure=15&unit=psig`). */
+/** The reading as the caller typed it, when it came with a unit (`?pressure=15&unit=psig`); gauge units name the atmosphere used. */
 export interface SaturationInput {
   value: number
-  unit: PressureUnit | TemperatureUnit
+  unit: AnyPressureUnit | TemperatureUnit
   atmosphericKpa?: number
+  altitudeM?: number
 }
 
 interface SaturationBase {
@@ -35,9 +37,20 @@ interface StandingBase {
   ambientC: number
   phase: StandingPhase
   note: string
+  /** Dangers first: liquid-full, above the design pressure, far above the critical pressure. */
+  warnings: string[]
   densityKgM3: number
+  /** Rise of this fill's standing pressure per kelvin of ambient, kPa/K. */
+  kpaPerK: number
+  /** The standing pressure in the caller's unit (`unit`, gauge at `altitudeM`; kPag at sea level by default). */
+  reading: PressureReading
   saturationPressureKpa?: number
+  saturatedLiquidDensityKgM3?: number
   warmAboveC?: number
+  liquidFullAboveC?: number
+  /** The stage's design pressure (absolute kPa) when one was given, and the ambient at which this fill reaches it. */
+  designPressureKpa?: number
+  reachesDesignPressureAtC?: number
   cautions: string[]
 }
 
@@ -56,6 +69,8 @@ export interface StandingFromPressureDto extends StandingBase {
   pressureKpa: number
   chargeG: number
   chargeIsMinimum: boolean
+  /** The pressure as typed, when it came as `pressure` + `unit`. */
+  input?: { value: number; unit: AnyPressureUnit; atmosphericKpa: number }
 }
 
 /** With a reference reading: the same fill carried to a new ambient (isochoric shift). */
@@ -72,5 +87,5 @@ export type StandingDto = StandingFromChargeDto | StandingFromPressureDto | Stan
 
 /** `GET /api/units-conversion`: one reading in another unit; gauge pressures name the atmosphere used. */
 export type UnitsConversionDto =
-  | { kind: 'pressure'; value: number; from: PressureUnit; to: PressureUnit; result: number; atmosphericKpa: number }
+  | { kind: 'pressure'; value: number; from: AnyPressureUnit; to: AnyPressureUnit; result: number; atmosphericKpa: number }
   | { kind: 'temperature'; value: number; from: TemperatureUnit; to: TemperatureUnit; result: number }

@@ -120,3 +120,65 @@ test('a blend shows bubble and dew, and other refrigerants can join the chart', 
   await page.getByRole('checkbox', { name: 'R23' }).check()
   await expect(page.getByRole('img', { name: /chart of R404A, R23/ })).toBeVisible()
 })
+
+test('phone: substitute-refrigerant plan agrees with the API and hands its charge to the charging card', async ({ page }) => {
+  await page.setViewportSize(PHONE)
+  await openCalculator(page)
+  const card = page.getByRole('region', { name: 'Substitute refrigerant: charge plan' })
+  await card.getByLabel('Nameplate refrigerant').selectOption('R13')
+  await card.getByRole('textbox', { name: 'Charge on the nameplate (g)' }).fill('600')
+  await card.getByRole('textbox', { name: 'Volume of the stage (L)' }).fill('12')
+  await card.getByRole('textbox', { name: 'Ambient now (°C)' }).fill('22')
+  await card.getByRole('textbox', { name: 'Design evaporating (°C)' }).fill('-85')
+  await card.getByLabel('Substitute refrigerant').selectOption('R1150')
+  await card.getByLabel('Show the pressure to charge to in').selectOption('psig')
+
+  // The browser computes with the same module the server runs: it must show what the API answers.
+  const api = await page.request.post('/api/calculations/substitution', {
+    data: { volumeL: 12, ambientC: 22, from: { designation: 'R13', chargeG: 600 }, to: 'R1150', basis: 'standing-pressure', evaporatingC: -85, unit: 'psig' },
+  })
+  const plan = (await api.json()) as { chargeG: number; chargeTo: { text: string } }
+  // 153.8 g and 137.6 psig: R13 (Platzer 1990) and R1150 (Smukala 2000) EOS via CoolProp 8.0.0, sea-level gauge.
+  expect(plan.chargeTo.text).toBe('137.6 psig')
+  const result = card.getByRole('status', { name: 'Substitution plan' })
+  const chargeTo = result.getByLabel('Charge to')
+  await expect(chargeTo).toContainText(`${shown(plan.chargeG, 0)} g of R1150`)
+  await expect(chargeTo).toContainText('137.6 psig')
+  await expect(result.getByRole('article', { name: 'Same liquid volume' })).toContainText('211 g of R1150')
+  await expect(result.getByRole('list', { name: 'Checks for this substitution' })).toContainText('from A1 to A3')
+
+  // Against a 25 barg design pressure, the same-mass plan (3363.8 kPa abs) is a danger.
+  await card.getByRole('textbox', { name: 'Design pressure, if known' }).fill('25')
+  await result.getByRole('radio', { name: 'Same mass' }).check()
+  await expect(chargeTo).toContainText('600 g of R1150')
+  await expect(result.getByRole('article', { name: 'Same mass' })).toContainText('DANGER')
+  await result.getByRole('radio', { name: 'Same standing pressure' }).check()
+
+  await result.getByRole('button', { name: 'Charge this plan' }).click()
+  const charging = page.getByRole('region', { name: 'Charging by standing pressure' })
+  await expect(charging.getByRole('textbox', { name: 'Target charge (g)' })).toHaveValue('153.8')
+  await charging.getByRole('textbox', { name: 'Standing pressure now' }).fill('100')
+  const progress = charging.getByRole('status', { name: 'Charging result' })
+  // 100 psig = 790.8 kPa abs: 9.491 kg/m³ of R1150 at 22 °C × 12 L = 113.9 g (CoolProp 8.0.0), 74.1 % of 153.8 g.
+  await expect(progress).toContainText('114 g')
+  await expect(progress).toContainText('74.1 % of target')
+  await charging.getByRole('radio', { name: 'Grams weighed in' }).check()
+  await charging.getByRole('textbox', { name: 'Grams weighed in' }).fill('120')
+  const expected = await page.request.post('/api/calculations/charging', { data: { designation: 'R1150', volumeL: 12, ambientC: 22, targetChargeG: 153.8, addedG: 120, unit: 'psig' } })
+  await expect(progress).toContainText((await expected.json() as { reading: { text: string } }).reading.text)
+  await expect(page.locator('main')).not.toContainText('NaN')
+  await expectNoSeriousA11yIssues(page)
+})
+
+test('a liquid-full fill is loud in the standing-pressure check', async ({ page }) => {
+  await openCalculator(page)
+  await page.getByLabel('Refrigerant', { exact: true }).selectOption('R170')
+  const card = page.getByRole('region', { name: 'Standing-pressure check' })
+  await card.getByRole('textbox', { name: 'Ambient (°C)' }).fill('22')
+  await card.getByRole('textbox', { name: 'Nameplate charge (g)' }).fill('3600')
+  await card.getByRole('textbox', { name: 'Internal volume (L)' }).fill('10')
+  const result = card.getByRole('status', { name: 'Standing-pressure result' })
+  // 3.6 kg of ethane in 10 L at 22 °C: compressed liquid at 5671.2 kPa (Bücker & Wagner 2006 EOS via CoolProp 8.0.0).
+  await expect(result).toContainText('5671.2 kPa abs')
+  await expect(result.getByRole('list', { name: 'Warnings' })).toContainText('LIQUID-FULL')
+})

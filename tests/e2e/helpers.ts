@@ -7,6 +7,9 @@ export const DESKTOP = { width: 1280, height: 900 }
 /** Signs in through the sign-in page and waits for the home page. */
 export async function signIn(page: Page, email: string) {
   await page.goto('/login')
+  // On a loaded machine the form can be typed into before the app has hydrated, which then clears it:
+  // wait until the page's scripts have loaded.
+  await page.waitForLoadState('networkidle')
   await page.getByLabel('E-mail').fill(email)
   await page.getByLabel('Password').fill(DEMO_PASSWORD)
   await page.getByRole('button', { name: 'Sign in' }).click()

@@ -73,7 +73,7 @@ export const STAGE_FACTS: readonly FactSpec[] = [
   n('{stage}.standingRatio', '–', 'Measured over expected standing pressure', ['standingPressure', 'ambientTemperature']),
   n('{stage}.standingPercentOfExpected', '%', 'Measured standing pressure as % of expected', ['standingPressure', 'ambientTemperature']),
   n('{stage}.standingChargePercent', '%', 'Charge implied by the standing pressure as % of nameplate charge', ['standingPressure', 'ambientTemperature']),
-  s('{stage}.standingPhase', 'Phase of the nameplate charge at ambient: gas, two-phase or supercritical', ['ambientTemperature']),
+  s('{stage}.standingPhase', 'Phase of the nameplate charge at ambient: gas, two-phase, liquid (liquid-full) or supercritical', ['ambientTemperature']),
   n('{stage}.currentPercentOfRated', '%', 'Compressor current as % of rated current', ['compressorCurrent']),
   n('{stage}.refrigerantOffsetK', 'K', 'Measured temperature minus nameplate saturation temperature at the measured pressure (negative = pressure above the curve)', ['standingPressure', 'ambientTemperature']),
   n('{stage}.refrigerantFitK', 'K', 'How far a measured saturated pressure–temperature pair lies from the nameplate refrigerant curve', ['standingPressure', 'ambientTemperature']),

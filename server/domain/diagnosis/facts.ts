@@ -309,7 +309,7 @@ function sub(a: number | undefined, b: number): number | undefined {
 
 interface Expected {
   pressureKpa: number
-  phase: 'gas' | 'two-phase' | 'supercritical'
+  phase: props.StandingPhase
 }
 
 /** Reference standing pressure measured on this unit wins over a computation from nameplate data. */
@@ -352,12 +352,14 @@ function standingFacts(ctx: StageContext, c: Collector): void {
   c.set(f('standingRatio'), measured / expected.pressureKpa)
   c.set(f('standingPercentOfExpected'), (measured / expected.pressureKpa) * 100)
   const { chargeG, volumeL } = config
-  // In the two-phase region the pressure says nothing about the amount, so no charge estimate there.
-  if (chargeG !== undefined && volumeL !== undefined && expected.phase !== 'two-phase') {
+  // With liquid present the pressure says nothing about the amount (two-phase) or the nameplate data are
+  // impossible (liquid-full), so no charge estimate there.
+  if (chargeG !== undefined && volumeL !== undefined && expected.phase !== 'two-phase' && expected.phase !== 'liquid') {
     const est = c.attempt(`${stage} charge from standing pressure`, () =>
       props.chargeFromStandingPressure({ designation: d, ambientC: ambient, volumeL, pressureKpa: measured }),
     )
-    if (est) c.set(f('standingChargePercent'), (est.chargeG / chargeG) * 100)
+    // A reading at or above the saturation pressure does not measure a gas charge (liquid, air or another gas).
+    if (est && (est.phase === 'gas' || est.phase === 'supercritical')) c.set(f('standingChargePercent'), (est.chargeG / chargeG) * 100)
   }
 }
 

@@ -2,12 +2,10 @@
 import type { UnitsConversionQuery } from '#shared/schemas/properties'
 import type { UnitsConversionDto } from '#shared/types/properties-dto'
 import {
-  PRESSURE_UNITS, TEMPERATURE_UNITS, UnitError, atmosphericPressureAtAltitude, fromCelsius, fromKpaAbs, toCelsius, toKpaAbs,
-  type PressureUnit, type TemperatureUnit,
+  ALL_PRESSURE_UNITS, STANDARD_ATMOSPHERE_KPA, TEMPERATURE_UNITS, UnitError, atmosphericPressureAtAltitude, fromCelsius, fromKpaAbs, isPressureUnit,
+  toCelsius, toKpaAbs, type TemperatureUnit,
 } from '#shared/utils/properties'
-import { STANDARD_ATMOSPHERE_KPA } from '#shared/utils/properties/units'
 
-const isPressureUnit = (u: string): u is PressureUnit => (PRESSURE_UNITS as readonly string[]).includes(u)
 const isTemperatureUnit = (u: string): u is TemperatureUnit => (TEMPERATURE_UNITS as readonly string[]).includes(u)
 
 /** Converts a pressure (through absolute kPa) or a temperature (through °C); throws UnitError / OutOfRangeError. */
@@ -18,5 +16,5 @@ export function convertReading(q: UnitsConversionQuery): UnitsConversionDto {
     return { kind: 'pressure', value, from, to, result: fromKpaAbs(toKpaAbs(value, from, atmosphericKpa), to, atmosphericKpa), atmosphericKpa }
   }
   if (isTemperatureUnit(from) && isTemperatureUnit(to)) return { kind: 'temperature', value, from, to, result: fromCelsius(toCelsius(value, from), to) }
-  throw new UnitError(`Cannot convert ${from} to ${to}: one is a pressure, the other a temperature.`, [...PRESSURE_UNITS, ...TEMPERATURE_UNITS])
+  throw new UnitError(`Cannot convert ${from} to ${to}: one is a pressure, the other a temperature.`, [...ALL_PRESSURE_UNITS, ...TEMPERATURE_UNITS])
 }

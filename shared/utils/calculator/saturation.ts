@@ -1,10 +1,11 @@
 /** Saturation look-ups shaped as the API answers them; the calculator page shows the same shapes. */
-import type { SaturationQuery } from '#shared/schemas/properties'
+import { atmosphereOf, type SaturationQuery } from '#shared/schemas/properties'
 import type { SaturationAtPressureDto, SaturationAtTemperatureDto, SaturationDto } from '#shared/types/properties-dto'
 import {
-  DESIGNATIONS, UnknownRefrigerantError, findRefrigerant, saturationPressure, saturationTemperature, toCelsius, toKpaAbs,
+  DESIGNATIONS, UnknownRefrigerantError, findRefrigerant, saturationPressure, saturationTemperature, toCelsius,
   type RefrigerantInfo,
 } from '#shared/utils/properties'
+import { absoluteKpa } from './pressure'
 
 /** The catalogue entry for a designation typed by a person ('r-170' works); UnknownRefrigerantError otherwise. */
 export function resolveRefrigerant(designation: string): RefrigerantInfo {
@@ -36,6 +37,8 @@ export function saturationLookup(info: RefrigerantInfo, q: SaturationQuery): Sat
     return { ...saturationAtTemperature(info, toCelsius(q.value, q.unit)), input: { value: q.value, unit: q.unit } }
   }
   if ('pressureKpa' in q) return saturationAtPressure(info, q.pressureKpa)
-  const input = { value: q.value, unit: q.unit, ...(q.atmosphericKpa !== undefined ? { atmosphericKpa: q.atmosphericKpa } : {}) }
-  return { ...saturationAtPressure(info, toKpaAbs(q.value, q.unit, q.atmosphericKpa)), input }
+  const atmosphericKpa = atmosphereOf(q)
+  const pressureKpa = absoluteKpa({ value: q.value, unit: q.unit, atmosphericKpa }, 'pressure')
+  const input = { value: q.value, unit: q.unit, atmosphericKpa, ...(q.altitudeM !== undefined ? { altitudeM: q.altitudeM } : {}) }
+  return { ...saturationAtPressure(info, pressureKpa), input }
 }

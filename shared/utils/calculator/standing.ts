@@ -1,59 +1,68 @@
 /** Standing-pressure calculations shaped as the API answers them; the calculator page uses the same. */
 import type { StandingRequest } from '#shared/schemas/properties'
 import type { StandingDto } from '#shared/types/properties-dto'
+import { designPressureWarnings, pressureReading } from '#shared/utils/charging/readings'
 import {
-  OutOfRangeError, chargeFromStandingPressure, shiftStandingPressure, standingPressureFromCharge,
+  ambientAtStandingPressure, assertWithinEos, chargeFromStandingPressure, shiftStandingPressure, standingPressureFromCharge,
   type RefrigerantInfo, type StandingResult,
 } from '#shared/utils/properties'
-import { fmtC, fmtKpa } from '#shared/utils/properties/errors'
-import { fluidModel } from '#shared/utils/properties/model'
+import { absoluteKpa, typedInput } from './pressure'
 
-function common(info: RefrigerantInfo, ambientC: number, r: StandingResult) {
+function common(info: RefrigerantInfo, req: StandingRequest, r: StandingResult, designPressureKpa: number | undefined) {
+  assertWithinEos(info.designation, r, req.ambientC)
+  const reachesDesignPressureAtC = designPressureKpa !== undefined
+    ? ambientAtStandingPressure(info.designation, r.densityKgM3, designPressureKpa, req.ambientC)
+    : undefined
+  const design = designPressureKpa !== undefined
+    ? designPressureWarnings(r.pressureKpa, designPressureKpa, reachesDesignPressureAtC, req.ambientC, req.display)
+    : []
+  // Loud first: liquid-full, then above the design pressure, then the rest.
+  const [loud, rest] = [r.warnings.filter((w) => w.startsWith('LIQUID-FULL')), r.warnings.filter((w) => !w.startsWith('LIQUID-FULL'))]
   return {
     designation: info.designation,
-    ambientC,
+    ambientC: req.ambientC,
     phase: r.phase,
     note: r.note,
+    warnings: [...loud, ...design, ...rest],
     densityKgM3: r.densityKgM3,
+    kpaPerK: r.kpaPerK,
+    reading: pressureReading(r.pressureKpa, req.display),
     ...(r.saturationPressureKpa !== undefined ? { saturationPressureKpa: r.saturationPressureKpa } : {}),
+    ...(r.saturatedLiquidDensityKgM3 !== undefined ? { saturatedLiquidDensityKgM3: r.saturatedLiquidDensityKgM3 } : {}),
     ...(r.warmAboveC !== undefined ? { warmAboveC: r.warmAboveC } : {}),
+    ...(r.liquidFullAboveC !== undefined ? { liquidFullAboveC: r.liquidFullAboveC } : {}),
+    ...(designPressureKpa !== undefined ? { designPressureKpa } : {}),
+    ...(reachesDesignPressureAtC !== undefined ? { reachesDesignPressureAtC } : {}),
     cautions: info.cautions,
   }
 }
 
-/**
- * A typing slip (1000 g in 1 L of ethylene) sends the equation of state far past the pressures it was
- * fitted to, where it still returns a number (GPa). Refuse such fills, naming the valid range.
- */
-function plausible<T extends StandingDto>(info: RefrigerantInfo, dto: T): T {
-  const maxKpa = fluidModel(info.designation).pmax / 1000
-  if (!Number.isFinite(dto.densityKgM3) || !Number.isFinite(dto.pressureKpa) || dto.pressureKpa > maxKpa) {
-    const range = { minC: info.validRange.minC, maxC: info.validRange.maxC, minKpa: 0, maxKpa }
-    throw new OutOfRangeError(`${info.designation}: this fill would stand above ${fmtKpa(maxKpa)} at ${fmtC(dto.ambientC)}, beyond the range of its equation of state (0 to ${fmtKpa(maxKpa)}). Check the charge and the volume.`, range)
-  }
-  return dto
-}
-
 /** Runs one standing-pressure request; property errors (OutOfRangeError) pass through to the caller. */
 export function standingCheck(info: RefrigerantInfo, req: StandingRequest): StandingDto {
-  return plausible(info, computeStanding(info, req))
+  return computeStanding(info, req)
 }
 
 function computeStanding(info: RefrigerantInfo, req: StandingRequest): StandingDto {
   const designation = info.designation
+  const designPressureKpa = req.designPressure ? absoluteKpa(req.designPressure, 'designPressure') : undefined
   if (req.mode === 'charge') {
     const r = standingPressureFromCharge({ designation, ambientC: req.ambientC, volumeL: req.volumeL, chargeG: req.chargeG })
-    return { mode: 'charge', ...common(info, req.ambientC, r), volumeL: req.volumeL, chargeG: req.chargeG, pressureKpa: r.pressureKpa }
+    return { mode: 'charge', ...common(info, req, r, designPressureKpa), volumeL: req.volumeL, chargeG: req.chargeG, pressureKpa: r.pressureKpa }
   }
   if (req.mode === 'pressure') {
-    const r = chargeFromStandingPressure({ designation, ambientC: req.ambientC, volumeL: req.volumeL, pressureKpa: req.pressureKpa })
+    const pressureKpa = absoluteKpa(req.pressure, 'pressure')
+    const r = chargeFromStandingPressure({ designation, ambientC: req.ambientC, volumeL: req.volumeL, pressureKpa })
+    const input = typedInput(req.pressure)
     // With liquid present the pressure only bounds the charge from below (saturated vapour filling the volume).
-    return { mode: 'pressure', ...common(info, req.ambientC, r), volumeL: req.volumeL, pressureKpa: req.pressureKpa, chargeG: r.chargeG, chargeIsMinimum: r.phase === 'two-phase' }
+    return {
+      mode: 'pressure', ...common(info, req, r, designPressureKpa), volumeL: req.volumeL, pressureKpa, chargeG: r.chargeG,
+      chargeIsMinimum: r.phase === 'two-phase', ...(input ? { input } : {}),
+    }
   }
   const r = shiftStandingPressure({ designation, ambientC: req.ambientC, referencePressureKpa: req.referencePressureKpa, referenceAmbientC: req.referenceAmbientC })
   const withVolume = req.volumeL !== undefined ? { volumeL: req.volumeL, chargeG: r.densityKgM3 * req.volumeL } : {}
   return {
-    mode: 'shift', ...common(info, req.ambientC, r), referencePressureKpa: req.referencePressureKpa, referenceAmbientC: req.referenceAmbientC,
+    mode: 'shift', ...common(info, req, r, designPressureKpa), referencePressureKpa: req.referencePressureKpa, referenceAmbientC: req.referenceAmbientC,
     pressureKpa: r.pressureKpa, ...withVolume,
   }
 }

@@ -4,12 +4,13 @@
  * R404A, R507A, R410A: Lemmon's (2003) pseudo-pure EOS gives density; its published bubble (pL) and dew (pV)
  * equations give the bubble and dew curves, as the paper intends.
  *
- * R508B (R23/R116 46/54 mass %) has no pseudo-pure EOS. We use the multi-fluid mixture model of
+ * R508B (R23/R116 46/54 mass %) and R503 (R23/R13 40.1/59.9 mass %) have no pseudo-pure EOS. We use the
+ * multi-fluid mixture model of
  * Kunz & Wagner (GERG-2004/2008) without a departure function:
  *   αʳ(δ, τ, x) = Σ xᵢ αʳᵢ(δ, τ),  δ = ρ/ρr(x), τ = Tr(x)/T,
- * with the components' reference EOS (Penoncello et al. 2003 for R23, Lemmon & Span 2006 for R116) and
- * Kunz–Wagner reducing functions whose R116/R23 parameters (βT, γT; βv = γv = 1) were fitted to VLE data
- * by Bell & Lemmon 2016 (see R116_R23 below). Bubble and dew points are full vapour–liquid equilibria
+ * with the components' reference EOS (Penoncello et al. 2003 for R23, Lemmon & Span 2006 for R116, Platzer
+ * et al. 1990 for R13) and Kunz–Wagner reducing functions whose pair parameters (βT, γT; βv = γv = 1) were
+ * fitted to VLE data by Bell & Lemmon 2016 (see MIXTURES below). Bubble and dew points are full vapour–liquid equilibria
  * (equal fugacities, successive substitution). The interaction parameters carry the azeotrope (pressures
  * above both components'); expect ~1 % on pressure and a few tenths of a kelvin on temperature.
  */
@@ -17,16 +18,22 @@ import { liquidDensity, vaporDensity, type Residual } from './eos'
 import { alphar, ancillary, compileEos, type CompiledEos, type EosData } from './helmholtz'
 import { criticalPoint, type SatNode } from './saturation'
 
-/** Node function for a pseudo-pure blend: bubble/dew from the ancillaries, dew vapour density from the EOS. */
+/**
+ * Node function for a pseudo-pure blend: bubble/dew from the ancillaries, dew vapour and bubble liquid
+ * densities from the EOS at those pressures.
+ */
 export function pseudoPureNodes(e: Residual, data: EosData): (T: number) => SatNode {
   const { pL, pV } = data.anc
   if (!pL || !pV) throw new Error(`${data.designation}: pseudo-pure fluid needs pL and pV equations`)
-  let lastRho: number | undefined
+  let lastRho: number | undefined, lastRhoL: number | undefined
   return (T) => {
     const pDew = ancillary(pV, T)
+    const pBubble = ancillary(pL, T)
     const rhoVapor = vaporDensity(e, T, pDew, lastRho)
+    const rhoLiquid = liquidDensity(e, T, pBubble, lastRhoL)
     lastRho = rhoVapor
-    return { pBubble: ancillary(pL, T), pDew, rhoVapor }
+    if (Number.isFinite(rhoLiquid)) lastRhoL = rhoLiquid
+    return { pBubble, pDew, rhoVapor, rhoLiquid }
   }
 }
 
@@ -80,7 +87,7 @@ export class BinaryMixture {
   /** Residual model at fixed composition x (for density and pressure). */
   residual(x: number[]): Residual {
     const { Tr, vr } = this.reducing(x)
-    const tmp = new Float64Array(4)
+    const tmp = new Float64Array(5)
     const M = x.reduce((s, xi, i) => s + xi * this.data[i]!.M, 0)
     return {
       R: this.R, M, Tr, rhor: 1 / vr,
@@ -88,7 +95,7 @@ export class BinaryMixture {
         out.fill(0)
         this.comps.forEach((c, i) => {
           alphar(c, tau, delta, tmp)
-          for (let k = 0; k < 4; k++) out[k]! += x[i]! * tmp[k]!
+          for (let k = 0; k < 5; k++) out[k]! += x[i]! * tmp[k]!
         })
         return out
       },
@@ -104,7 +111,7 @@ export class BinaryMixture {
   lnPhi(x: number[], T: number, rho: number): number[] {
     const { Tr, vr, nT, nv } = this.reducing(x)
     const tau = Tr / T, delta = rho * vr
-    const tmp = new Float64Array(4)
+    const tmp = new Float64Array(5)
     const ai: number[] = []
     let a1 = 0, a3 = 0
     this.comps.forEach((c, i) => {
@@ -121,7 +128,7 @@ export class BinaryMixture {
    * Bubble (given liquid x) or dew (given vapour y) pressure at T by successive substitution on K = φᴸ/φⱽ.
    * Returns null if it does not converge (near the critical point).
    */
-  equilibrium(kind: 'bubble' | 'dew', z: number[], T: number, start?: { p: number; other: number[] }): { p: number; rhoVapor: number; other: number[] } | null {
+  equilibrium(kind: 'bubble' | 'dew', z: number[], T: number, start?: { p: number; other: number[] }): { p: number; rhoVapor: number; rhoLiquid: number; other: number[] } | null {
     const psat = this.data.map((d) => ancillary(d.anc.pS!, Math.min(T, d.anc.pS!.Tmax)))
     let p = start?.p ?? z.reduce((s, zi, i) => s + zi * psat[i]!, 0) // Raoult's law start
     let other = start?.other ?? z.map((zi, i) => (kind === 'bubble' ? (zi * psat[i]!) / p : zi / psat[i]! * p))
@@ -139,12 +146,12 @@ export class BinaryMixture {
         const S = z.reduce((s, zi, i) => s + zi * K[i]!, 0)
         other = z.map((zi, i) => zi * K[i]!)
         p *= S
-        if (Math.abs(S - 1) < 1e-10) return { p, rhoVapor: rV, other: normalise(other) }
+        if (Math.abs(S - 1) < 1e-10) return { p, rhoVapor: rV, rhoLiquid: rL, other: normalise(other) }
       } else {
         const S = z.reduce((s, zi, i) => s + zi / K[i]!, 0)
         other = z.map((zi, i) => zi / K[i]!)
         p /= S
-        if (Math.abs(S - 1) < 1e-10) return { p, rhoVapor: rV, other: normalise(other) }
+        if (Math.abs(S - 1) < 1e-10) return { p, rhoVapor: rV, rhoLiquid: rL, other: normalise(other) }
       }
     }
     return null
@@ -157,22 +164,40 @@ function normalise(v: number[]): number[] {
 }
 
 /**
- * R116/R23 reducing parameters fitted to experimental VLE data by Bell & Lemmon 2016
+ * Kunz–Wagner reducing parameters fitted to experimental VLE data by Bell & Lemmon 2016
  * (J. Chem. Eng. Data, "Automatic fitting of binary interaction parameters for multi-fluid
  * Helmholtz-energy-explicit mixture models"), as distributed in CoolProp 8.0.0's mixture_binary_pairs.json
- * (MIT licence). No departure function (F = 0) for this pair.
+ * (MIT licence). No departure function (F = 0) for these pairs. The order of the pair matters (βT ≠ 1):
+ * component 0 is the file's Name1.
  */
 const R116_R23: BinaryParams = { betaT: 0.99695, gammaT: 0.91114, betaV: 1, gammaV: 1 }
+const R13_R23: BinaryParams = { betaT: 1.00234, gammaT: 0.93027, betaV: 1, gammaV: 1 }
 
-/** R508B model: residual for density, pseudo-critical point and node function for the saturation table. */
-export function r508bModel(r23: EosData, r116: EosData): {
+/** A fixed-composition binary blend computed as a true mixture: its components, mass fractions and pair parameters. */
+export interface MixtureRecipe {
+  components: [string, string]
+  massFractions: [number, number]
+  params: BinaryParams
+}
+
+/**
+ * R508B: R23/R116 46/54 mass %; R503: R23/R13 40.1/59.9 mass % (ASHRAE 34 compositions, from memory).
+ * Both are azeotropes whose published pair parameters carry the pressure maximum.
+ */
+export const MIXTURES: Readonly<Record<string, MixtureRecipe>> = {
+  R508B: { components: ['R116', 'R23'], massFractions: [0.54, 0.46], params: R116_R23 },
+  R503: { components: ['R13', 'R23'], massFractions: [0.599, 0.401], params: R13_R23 },
+}
+
+/** Mixture model: residual for density, pseudo-critical point and node function for the saturation table. */
+export function mixtureModel(components: [EosData, EosData], massFractions: [number, number], params: BinaryParams): {
   residual: Residual; crit: { T: number; p: number; rho: number }; Tmin: number; nodes: (T: number) => SatNode | null
 } {
-  const mix = new BinaryMixture([r116, r23], R116_R23)
-  const x = mix.moleFractions([0.54, 0.46])
+  const mix = new BinaryMixture(components, params)
+  const x = mix.moleFractions(massFractions)
   const residual = mix.residual(x)
-  // The critical point of the fixed-composition model; for a near-azeotrope (0.4 K glide) this is within a
-  // few tenths of a kelvin of the true mixture critical point.
+  // The critical point of the fixed-composition model; for a near-azeotrope (glide under 1 K) this is within
+  // a few tenths of a kelvin of the true mixture critical point.
   const crit = criticalPoint(residual, residual.Tr, residual.rhor)
   // Nodes are requested cold to hot: start each equilibrium from the previous one, scaled by the
   // pressure ratio of the neighbouring temperature (Clausius–Clapeyron-like continuation).
@@ -184,8 +209,9 @@ export function r508bModel(r23: EosData, r116: EosData): {
     const d = mix.equilibrium('dew', x, T, guess(lastD))
     if (!b || !d || d.p > b.p * 1.001 || b.p > crit.p) return null
     lastB = b; lastD = d; lastT = T
-    return { pBubble: b.p, pDew: d.p, rhoVapor: d.rhoVapor }
+    // At the bubble point the liquid has the blend's own composition: its density is the liquid root there.
+    return { pBubble: b.p, pDew: d.p, rhoVapor: d.rhoVapor, rhoLiquid: b.rhoLiquid }
   }
-  // Lower limit: R116's triple point (173.1 K); below it the R116-rich solid could form.
-  return { residual, crit, Tmin: r116.Ttriple, nodes }
+  // Lower limit: the higher of the components' triple points; below it a component-rich solid could form.
+  return { residual, crit, Tmin: Math.max(components[0].Ttriple, components[1].Ttriple), nodes }
 }

@@ -10,7 +10,7 @@ export interface Residual {
   M: number // kg/mol
   Tr: number // K
   rhor: number // mol/m³
-  /** out = [αʳ, δαʳ_δ, δ²αʳ_δδ, ταʳ_τ] at (τ, δ). */
+  /** out = [αʳ, δαʳ_δ, δ²αʳ_δδ, ταʳ_τ, δταʳ_δτ] at (τ, δ); out has length 5. */
   alphar(tau: number, delta: number, out: Float64Array): Float64Array
   /** A density on the liquid side of the spinodal at T, used to start liquid-root searches. */
   liquidGuess(T: number): number
@@ -26,12 +26,18 @@ export function pureResidual(data: EosData): Residual {
   }
 }
 
-const scratch = new Float64Array(4)
+const scratch = new Float64Array(5)
 
 /** Pressure (Pa) at T (K), molar density ρ (mol/m³): p = ρRT(1 + δαʳ_δ). */
 export function pressure(e: Residual, T: number, rho: number): number {
   const a = e.alphar(e.Tr / T, rho / e.rhor, scratch)
   return rho * e.R * T * (1 + a[1]!)
+}
+
+/** Pressure (Pa) and the slope of the isochore (∂p/∂T)_ρ (Pa/K) at (T, ρ), from one evaluation; single-phase states. */
+export function pressureAndIsochoricSlope(e: Residual, T: number, rho: number): [number, number] {
+  const a = e.alphar(e.Tr / T, rho / e.rhor, scratch)
+  return [rho * e.R * T * (1 + a[1]!), rho * e.R * (1 + a[1]! - a[4]!)]
 }
 
 /** Compressibility factor Z = p/(ρRT). */

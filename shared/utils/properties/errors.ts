@@ -11,11 +11,14 @@ export class UnknownRefrigerantError extends Error {
 /** An input lies outside the range where the property model is valid (or physically possible). */
 export class OutOfRangeError extends Error {
   range?: { minC: number; maxC: number; minKpa?: number; maxKpa?: number }
+  /** The input field at fault, when one is (so a form can show the message beside it). */
+  field?: string
 
-  constructor(message: string, range?: { minC: number; maxC: number; minKpa?: number; maxKpa?: number }) {
+  constructor(message: string, range?: { minC: number; maxC: number; minKpa?: number; maxKpa?: number }, field?: string) {
     super(message)
     this.name = 'OutOfRangeError'
     if (range) this.range = range
+    if (field) this.field = field
   }
 }
 

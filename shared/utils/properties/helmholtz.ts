@@ -51,6 +51,16 @@ export interface CompiledEos {
   lastTau: number
   tauFactor: Float64Array
   tauLog: Float64Array
+  /**
+   * Speed-ups for the common case of integer exponents on δ: powers of δ by table, and one exp(−c δ^l)
+   * per distinct (c, l) instead of one per term. `group[i]` is −1 for terms without such a factor.
+   */
+  maxPow: number
+  powers: Float64Array
+  group: Int32Array
+  groupC: Float64Array
+  groupL: Float64Array
+  groupExp: Float64Array
 }
 
 /** Build the flattened evaluator from EOS data. */
@@ -70,10 +80,23 @@ export function compileEos(data: EosData): CompiledEos {
     }
   }
   const col = (k: number) => Float64Array.from(rows, (r) => r[k]!)
+  const small = (x: number) => Number.isInteger(x) && x >= 0 && x <= 24
+  const integral = rows.every((r) => small(r[1]!) && (r[3] === 0 || small(r[4]!)))
+  const keys: string[] = []
+  const group = Int32Array.from(rows, (r) => {
+    if (!integral || r[3] === 0) return -1
+    const key = `${r[3]}:${r[4]}`
+    if (!keys.includes(key)) keys.push(key)
+    return keys.indexOf(key)
+  })
+  const maxPow = integral ? Math.max(0, ...rows.map((r) => Math.max(r[1]!, r[3] === 0 ? 0 : r[4]!))) : -1
   return {
     data, count: rows.length,
     n: col(0), d: col(1), t: col(2), c: col(3), l: col(4), eta: col(5), eps: col(6), beta: col(7), gamma: col(8), bGao: col(9),
     na, lastTau: NaN, tauFactor: new Float64Array(rows.length), tauLog: new Float64Array(rows.length),
+    maxPow, powers: new Float64Array(maxPow + 1), group,
+    groupC: Float64Array.from(keys, (k) => Number(k.split(':')[0])), groupL: Float64Array.from(keys, (k) => Number(k.split(':')[1])),
+    groupExp: new Float64Array(keys.length),
   }
 }
 
@@ -102,19 +125,30 @@ function updateTau(e: CompiledEos, tau: number): void {
 }
 
 /**
- * Evaluate αʳ and derivatives at (τ, δ) into out:
- * out[0] = αʳ, out[1] = δ αʳ_δ, out[2] = δ² αʳ_δδ, out[3] = τ αʳ_τ.
+ * Evaluate αʳ and derivatives at (τ, δ) into out (length 5):
+ * out[0] = αʳ, out[1] = δ αʳ_δ, out[2] = δ² αʳ_δδ, out[3] = τ αʳ_τ, out[4] = δτ αʳ_δτ.
+ * The last one gives the slope of an isochore, (∂p/∂T)_ρ = ρR(1 + δαʳ_δ − δταʳ_δτ).
  */
 export function alphar(e: CompiledEos, tau: number, delta: number, out: Float64Array): Float64Array {
   updateTau(e, tau)
-  let a = 0, a1 = 0, a2 = 0, at = 0
+  const table = e.maxPow >= 0
+  if (table) {
+    const pw = e.powers
+    pw[0] = 1
+    for (let k = 1; k <= e.maxPow; k++) pw[k] = pw[k - 1]! * delta
+    for (let g = 0; g < e.groupExp.length; g++) e.groupExp[g] = Math.exp(-e.groupC[g]! * pw[e.groupL[g]!]!)
+  }
+  let a = 0, a1 = 0, a2 = 0, at = 0, adt = 0
   for (let i = 0; i < e.count; i++) {
     const d = e.d[i]!, c = e.c[i]!, eta = e.eta[i]!
     let arg = 0, du = d, du2 = -d // δ·(ln term)_δ and δ²·(ln term)_δδ
+    let factor = e.tauFactor[i]! * (d === 0 ? 1 : table ? e.powers[d]! : Math.pow(delta, d))
     if (c !== 0) {
       const l = e.l[i]!
-      const dl = Math.pow(delta, l)
-      arg -= c * dl
+      const g = e.group[i]!
+      const dl = g >= 0 ? e.powers[l]! : Math.pow(delta, l)
+      if (g >= 0) factor *= e.groupExp[g]!
+      else arg -= c * dl
       du -= c * l * dl
       du2 -= c * l * (l - 1) * dl
     }
@@ -124,18 +158,22 @@ export function alphar(e: CompiledEos, tau: number, delta: number, out: Float64A
       du -= 2 * eta * delta * dd
       du2 -= 2 * eta * delta * delta
     }
-    let term = e.tauFactor[i]! * (d === 0 ? 1 : Math.pow(delta, d))
+    let term = factor
     if (arg !== 0) term *= Math.exp(arg)
     a += term
     a1 += term * du
     a2 += term * (du * du + du2)
     at += term * e.tauLog[i]!
+    adt += term * du * e.tauLog[i]!
   }
   if (e.na) {
     const r = nonAnalytic(e.na, tau, delta)
     a += r[0]; a1 += r[1]; a2 += r[2]; at += r[3]
+    // τ∂/∂τ of the non-analytic terms' δαʳ_δ by a central difference: only carbon dioxide has them.
+    const h = 1e-6 * tau
+    adt += (tau * (nonAnalytic(e.na, tau + h, delta)[1] - nonAnalytic(e.na, tau - h, delta)[1])) / (2 * h)
   }
-  out[0] = a; out[1] = a1; out[2] = a2; out[3] = at
+  out[0] = a; out[1] = a1; out[2] = a2; out[3] = at; out[4] = adt
   return out
 }
 

@@ -4,11 +4,14 @@
  * of state (coefficients as distributed in CoolProp 8.0.0, MIT licence; papers cited per fluid in data/).
  */
 export { DESIGNATIONS, findRefrigerant, isDesignation, listRefrigerants } from './fluids'
-export type { Designation, RefrigerantInfo } from './fluids'
+export type { Designation, RefrigerantFamily, RefrigerantInfo } from './fluids'
 export { OutOfRangeError, UnitError, UnknownRefrigerantError } from './errors'
-export { gasDensity, glideK, pressureFromDensity, saturationPressure, saturationTemperature } from './properties'
-export { chargeFromStandingPressure, shiftStandingPressure, standingPressureFromCharge } from './standing'
+export { gasDensity, glideK, pressureFromDensity, saturatedLiquidDensity, saturationPressure, saturationTemperature } from './properties'
+export { ABOVE_CRITICAL_AT_AMBIENT, ABOVE_SATURATION_MARGIN, ambientAtStandingPressure, assertWithinEos, chargeFromStandingPressure, shiftStandingPressure, standingPressureFromCharge } from './standing'
 export type { StandingPhase, StandingResult } from './standing'
-export { PRESSURE_UNITS, TEMPERATURE_UNITS, atmosphericPressureAtAltitude, fromCelsius, fromKpaAbs, toCelsius, toKpaAbs } from './units'
-export type { PressureUnit, TemperatureUnit } from './units'
+export {
+  ALL_PRESSURE_UNITS, PRESSURE_UNIT_LABELS, PRESSURE_UNITS, STANDARD_ATMOSPHERE_KPA, TEMPERATURE_UNITS, VACUUM_UNITS,
+  atmosphericPressureAtAltitude, fromCelsius, fromKpaAbs, isGaugeUnit, isPressureUnit, toCelsius, toKpaAbs,
+} from './units'
+export type { AnyPressureUnit, PressureUnit, PressureUnitLabel, TemperatureUnit, VacuumUnit } from './units'
 export { compressionRatio, saturatedCondensingC, saturatedSuctionC, subcoolingK, superheatK } from './trade'

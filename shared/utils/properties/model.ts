@@ -1,11 +1,11 @@
 /**
  * Per-fluid model registry. Residual models and saturation tables are built lazily on first use
- * (a few ms per fluid; ~0.1 s for R508B, whose table needs mixture phase equilibria) and cached.
+ * (a few ms per fluid; ~0.1 s for R508B and R503, whose tables need mixture phase equilibria) and cached.
  */
-import { r508bModel, pseudoPureNodes } from './blends'
+import { MIXTURES, mixtureModel, pseudoPureNodes, type MixtureRecipe } from './blends'
 import { EOS_DATA } from './data/index'
 import { pureResidual, type Residual } from './eos'
-import { DESIGNATIONS, R508B_TMIN, infoOf, type Designation, type RefrigerantInfo } from './fluids'
+import { DESIGNATIONS, MIXTURE_CONSTANTS, infoOf, type Designation, type RefrigerantInfo } from './fluids'
 import { buildTable, pureNodes, type SatTable } from './saturation'
 import { UnknownRefrigerantError } from './errors'
 
@@ -27,7 +27,8 @@ export function fluidModel(d: Designation): FluidModel {
   if (hit) return hit
   const info = infoOf(d)
   if (!info) throw new UnknownRefrigerantError(String(d), DESIGNATIONS)
-  const m = d === 'R508B' ? makeR508B(info) : makePure(d, info)
+  const recipe = MIXTURES[d]
+  const m = recipe ? makeMixture(d, info, recipe) : makePure(d, info)
   cache.set(d, m)
   return m
 }
@@ -48,11 +49,11 @@ function makePure(d: Designation, info: RefrigerantInfo): FluidModel {
   return { d, info, residual, Tmin, Tmax: data.Tmax, pmax: data.pmax, blend: info.kind === 'blend', sat }
 }
 
-function makeR508B(info: RefrigerantInfo): FluidModel {
-  const r23 = EOS_DATA.R23!, r116 = EOS_DATA.R116!
-  const m = r508bModel(r23, r116)
+function makeMixture(d: Designation, info: RefrigerantInfo, recipe: MixtureRecipe): FluidModel {
+  const [a, b] = recipe.components.map((c) => EOS_DATA[c]!) as [NonNullable<(typeof EOS_DATA)[string]>, NonNullable<(typeof EOS_DATA)[string]>]
+  const m = mixtureModel([a, b], recipe.massFractions, recipe.params)
+  const Tmin = MIXTURE_CONSTANTS[d]!.Tmin
   // 80 nodes: each needs two mixture VLE solves; Hermite interpolation keeps ~1e-6 relative accuracy.
-  const sat = lazy(() => buildTable(m.crit, m.Tmin, m.nodes, 80, 3, false))
-  const residual = m.residual
-  return { d: 'R508B', info, residual, Tmin: R508B_TMIN, Tmax: Math.min(r23.Tmax, r116.Tmax), pmax: Math.min(r23.pmax, r116.pmax), blend: true, sat }
+  const sat = lazy(() => buildTable(m.crit, Tmin, m.nodes, 80, 3, false))
+  return { d, info, residual: m.residual, Tmin, Tmax: Math.min(a.Tmax, b.Tmax), pmax: Math.min(a.pmax, b.pmax), blend: true, sat }
 }

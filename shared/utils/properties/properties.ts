@@ -107,3 +107,14 @@ export function pressureFromDensity(d: Designation, temperatureC: number, densit
   }
   return pressure(m.residual, T, densityKgM3 / m.residual.M) / 1000
 }
+
+/**
+ * Saturated-liquid density (kg/m³) at a temperature (°C) below the critical point: the bubble-point liquid
+ * for blends. The liquid-volume basis of a charge substitution compares fluids with it.
+ */
+export function saturatedLiquidDensity(d: Designation, temperatureC: number): number {
+  const m = fluidModel(d)
+  const t = m.sat()
+  const u = uOf(t, satT(m, t, temperatureC))
+  return Math.exp(t.lnRhoL.at(u)) * m.residual.M
+}

@@ -92,13 +92,15 @@ function slopes(y: Float64Array, h: number, even: boolean): Float64Array {
   return m
 }
 
-/** Bubble and dew pressures (Pa) and the molar density of the dew-point vapour at one temperature. */
-export interface SatNode { pBubble: number; pDew: number; rhoVapor: number }
+/** Bubble and dew pressures (Pa), the molar densities of the dew-point vapour and of the bubble-point liquid at one temperature. */
+export interface SatNode { pBubble: number; pDew: number; rhoVapor: number; rhoLiquid: number }
 
 /** A fluid's saturation curve: pressures from the critical point (u = 0) down to Tmin. */
 export interface SatTable {
   Tc: number; pc: number; rhoc: number; Tmin: number; h: number
   lnPb: HermiteColumn; lnPd: HermiteColumn; lnRhoV: HermiteColumn
+  /** Saturated (bubble-point) liquid density: a fill denser than this at ambient is liquid-full. */
+  lnRhoL: HermiteColumn
   /** Lowest valid pressure (Pa) for T-from-p (the dew pressure at Tmin; bubble temperature may then be just below Tmin). */
   pMin: number
 }
@@ -114,22 +116,22 @@ export function buildTable(crit: { T: number; p: number; rho: number }, Tmin: nu
   // Blends tabulate a few kelvin below Tmin so that at the lowest valid (dew) pressure the bubble
   // temperature, which lies up to one glide lower, is still on the table.
   const h = Math.sqrt(1 - (Tmin - extendK) / crit.T) / N
-  const lb = new Float64Array(N + 1), ld = new Float64Array(N + 1), lr = new Float64Array(N + 1)
+  const lb = new Float64Array(N + 1), ld = new Float64Array(N + 1), lr = new Float64Array(N + 1), ll = new Float64Array(N + 1)
   lb[0] = ld[0] = Math.log(crit.p)
-  lr[0] = Math.log(crit.rho)
+  lr[0] = ll[0] = Math.log(crit.rho)
   // Cold to hot, so node functions can continue from the previous (converged) solution.
   let kGood = N + 1
   for (let k = N; k >= 1; k--) {
     const u = k * h
     const s = node(crit.T * (1 - u * u))
     if (!s) break
-    lb[k] = Math.log(s.pBubble); ld[k] = Math.log(s.pDew); lr[k] = Math.log(s.rhoVapor)
+    lb[k] = Math.log(s.pBubble); ld[k] = Math.log(s.pDew); lr[k] = Math.log(s.rhoVapor); ll[k] = Math.log(s.rhoLiquid)
     kGood = k
   }
   if (kGood > N) throw new Error('saturation solver failed at the lowest temperature')
   for (let k = 1; k < kGood; k++) {
     const f = (k / kGood) ** 2
-    for (const col of [lb, ld, lr]) col[k] = col[0]! + (col[kGood]! - col[0]!) * f
+    for (const col of [lb, ld, lr, ll]) col[k] = col[0]! + (col[kGood]! - col[0]!) * f
   }
   // Pressures must fall monotonically from Tc. R404A's published bubble-pressure equation rises ~0.003 %
   // above pc within 2 mK of Tc (a fitting artefact); clamp it flat there.
@@ -140,7 +142,7 @@ export function buildTable(crit: { T: number; p: number; rho: number }, Tmin: nu
   const uMin = Math.sqrt(1 - Tmin / crit.T)
   return {
     Tc: crit.T, pc: crit.p, rhoc: crit.rho, Tmin, h,
-    lnPb, lnPd, lnRhoV: new HermiteColumn(lr, h, false),
+    lnPb, lnPd, lnRhoV: new HermiteColumn(lr, h, false), lnRhoL: new HermiteColumn(ll, h, false),
     // Lowest pressure at which both bubble and dew temperatures exist on the table: the dew pressure at Tmin.
     pMin: Math.min(Math.exp(lnPb.at(uMin)), Math.exp(lnPd.at(uMin))),
   }
@@ -151,7 +153,7 @@ export const uOf = (t: SatTable, T: number): number => Math.sqrt(Math.max(0, 1 -
 /** Temperature (K) of a u-coordinate. */
 export const tOf = (t: SatTable, u: number): number => t.Tc * (1 - u * u)
 
-const sc = new Float64Array(4)
+const sc = new Float64Array(5)
 
 /** Critical point of a (fixed-composition) residual model: (∂p/∂ρ)_T = (∂²p/∂ρ²)_T = 0, Newton with numerical Jacobian. */
 export function criticalPoint(e: Residual, T0: number, rho0: number): { T: number; p: number; rho: number } {
@@ -174,7 +176,7 @@ export function criticalPoint(e: Residual, T0: number, rho0: number): { T: numbe
   const a = e.alphar(tau, delta, sc)
   return { T, rho, p: rho * e.R * T * (1 + a[1]!) }
 }
-const sc2 = new Float64Array(4)
+const sc2 = new Float64Array(5)
 
 /**
  * Phase equilibrium of a pure fluid at T by Akasaka's (2008) Newton method: equal
@@ -224,9 +226,9 @@ export function pureNodes(e: Residual, anc: { pS: Ancillary; rhoL: Ancillary; rh
     if (s) {
       scale = s.p / ancillary(anc.pS, T)
       last = { rhoL: s.rhoL, rhoV: s.rhoV, T }
-      return { pBubble: s.p, pDew: s.p, rhoVapor: s.rhoV }
+      return { pBubble: s.p, pDew: s.p, rhoVapor: s.rhoV, rhoLiquid: s.rhoL }
     }
     const p = ancillary(anc.pS, T) * scale
-    return { pBubble: p, pDew: p, rhoVapor: ancillary(anc.rhoV, T) }
+    return { pBubble: p, pDew: p, rhoVapor: ancillary(anc.rhoV, T), rhoLiquid: ancillary(anc.rhoL, T) }
   }
 }

@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest'
 import { ApiClient, DEMO, signedIn } from '../helpers'
 
-// The contract's minimum list of designations (docs: shared CONTRACT "Refrigerant properties").
-const REQUIRED = ['R1150', 'R170', 'R290', 'R600a', 'R1270', 'R50', 'R14', 'R23', 'R116', 'R508B', 'R404A', 'R507A', 'R134a', 'R22', 'R410A', 'R744', 'R717']
+// The designations outside scripts rely on: the usual fills of cascade and single-stage units, and the
+// original CFC fills (R13, R12, R503) that substitution plans start from.
+const REQUIRED = ['R1150', 'R170', 'R290', 'R600a', 'R1270', 'R50', 'R14', 'R23', 'R116', 'R508B', 'R404A', 'R507A', 'R134a', 'R22', 'R410A', 'R744', 'R717', 'R13', 'R12', 'R503']
 
 interface Refrigerant {
   designation: string
@@ -25,7 +26,7 @@ describe('GET /api/refrigerants', () => {
     expect(res.status).toBe(401)
   })
 
-  it('lists all 17 designations with the contract fields', async () => {
+  it('lists all 20 designations with the public fields', async () => {
     const tech = await signedIn(DEMO.tech)
     const res = await tech.get<Refrigerant[]>('/api/refrigerants')
     expect(res.status).toBe(200)
@@ -51,6 +52,11 @@ describe('GET /api/refrigerants', () => {
     expect(ethane.criticalTemperatureC).toBeCloseTo(32.17, 1)
     // R404A is an R125/R143a/R134a blend (ASHRAE 34 composition, from memory).
     expect(list.find((r) => r.designation === 'R404A')).toMatchObject({ kind: 'blend', safetyClass: 'A1' })
+    // R13: A1 (ASHRAE 34, from memory); critical point of the Platzer et al. 1990 EOS 303.05 K (CoolProp 8.0.0).
+    expect(list.find((r) => r.designation === 'R13')).toMatchObject({ name: 'chlorotrifluoromethane', safetyClass: 'A1', kind: 'pure' })
+    expect(list.find((r) => r.designation === 'R13')!.criticalTemperatureC).toBeCloseTo(29.9, 1)
+    // R12: normal boiling point 243.398 K (Marx et al. 1992 EOS).
+    expect(list.find((r) => r.designation === 'R12')!.normalBoilingPointC).toBeCloseTo(-29.75, 1)
   })
 })
 

@@ -58,6 +58,38 @@ describe('GET /api/refrigerants/{designation}/saturation', () => {
     near(res.body.pressureKpa, 204.746, 1e-5)
   })
 
+  it('reads a gauge pressure against the altitude: 15 psig of R290 is −24.8 °C at sea level, −27.8 °C at 2000 m', async () => {
+    // 15 psig at 2000 m: 15 × 6.894757 + 79.495 kPa (ISO 2533) = 182.92 kPa abs; propane saturation temperatures
+    // at 204.75 and 182.92 kPa from the Lemmon et al. 2009 EOS as computed with CoolProp 8.0.0: −24.83 and −27.79 °C.
+    const sea = await sat('R290/saturation?pressure=15&unit=psig')
+    const high = await sat('R290/saturation?pressure=15&unit=psig&altitudeM=2000')
+    expect(high.status).toBe(200)
+    near(high.body.pressureKpa, 182.917, 1e-4)
+    expect(high.body.temperatureC as number).toBeCloseTo(-27.79, 1)
+    expect(sea.body.temperatureC as number).toBeCloseTo(-24.83, 1)
+    expect(high.body.input).toMatchObject({ value: 15, unit: 'psig', altitudeM: 2000, atmosphericKpa: expect.closeTo(79.495, 2) })
+  })
+
+  it('accepts vacuum units: 29 inHg vacuum of R23 at sea level is 3.124 kPa abs', async () => {
+    const res = await sat('R23/saturation?pressure=29&unit=inHgV')
+    expect(res.status).toBe(200)
+    near(res.body.pressureKpa, 101.325 - 29 * 3.386389, 1e-4) // 1 inHg = 3.386389 kPa (conventional)
+  })
+
+  it('knows R13 and R12: −60 °C → 280.15 kPa (Platzer 1990 EOS), 0 °C → 308.15 kPa (Marx 1992 EOS), both via CoolProp 8.0.0', async () => {
+    near((await sat('R13/saturation?temperatureC=-60')).body.pressureKpa, 280.15, 0.001)
+    near((await sat('R12/saturation?temperatureC=0')).body.pressureKpa, 308.15, 0.001)
+    const r503 = await sat('R503/saturation?temperatureC=-90')
+    near(r503.body.bubblePressureKpa, 88.919, 0.01) // R23/R13 mixture model as computed with CoolProp 8.0.0
+  })
+
+  it('answers 422 naming the field for a gauge reading below a perfect vacuum', async () => {
+    const res = await sat('R170/saturation?pressure=-20&unit=psig')
+    expect(res.status).toBe(422)
+    expect(res.body.message).toMatch(/below a perfect vacuum/)
+    expect(res.body.data?.fieldErrors?.pressure).toBeDefined()
+  })
+
   it('answers 422 naming the valid range for a state outside it', async () => {
     const res = await sat('R170/saturation?temperatureC=40')
     expect(res.status).toBe(422)
@@ -69,7 +101,7 @@ describe('GET /api/refrigerants/{designation}/saturation', () => {
   })
 
   it('answers 400 with field errors for both, neither or non-numeric parameters', async () => {
-    for (const query of ['temperatureC=-80&pressureKpa=120', '', 'temperatureC=cold', 'pressureKpa=', 'temperatureC=1&temperatureC=2', 'pressure=15&unit=C']) {
+    for (const query of ['temperatureC=-80&pressureKpa=120', '', 'temperatureC=cold', 'pressureKpa=', 'temperatureC=1&temperatureC=2', 'pressure=15&unit=C', 'pressure=15&unit=psig&altitudeM=99999', 'pressure=15&unit=psig&altitudeM=10&atmosphericKpa=100', 'pressure=15&unit=inHg']) {
       const res = await sat(`R170/saturation?${query}`)
       expect(res.status, query).toBe(400)
       expect(Object.keys(res.body.data?.fieldErrors ?? {}).length, query).toBeGreaterThan(0)

@@ -18,6 +18,18 @@ describe('GET /api/units-conversion', () => {
     expect(f.body.result).toBeCloseTo(-40, 9) // −40 °C = −40 °F (definition of the scales)
   })
 
+  it('converts the vacuum units of evacuation: micron, mbar, Pa and inHg vacuum', async () => {
+    const tech = await signedIn(DEMO.tech)
+    // 500 micron = 0.5 mmHg × 133.322387 Pa (conventional millimetre of mercury) = 66.661 Pa
+    expect((await tech.get<Conversion>('/api/units-conversion?value=500&from=micron&to=Pa')).body.result).toBeCloseTo(66.661, 2)
+    expect((await tech.get<Conversion>('/api/units-conversion?value=1&from=mbar&to=Pa')).body.result).toBeCloseTo(100, 9)
+    // 20 inHg vacuum at 2000 m: 79.495 kPa (ISO 2533) − 20 × 3.386389 kPa = 11.767 kPa abs
+    const vac = await tech.get<Conversion>('/api/units-conversion?value=20&from=inHgV&to=kPa&altitudeM=2000')
+    expect(vac.body.result).toBeCloseTo(79.495 - 20 * 3.386389, 2)
+    // There is only 23.5 inHg of atmosphere at 2000 m: 25 inHg vacuum is past a perfect vacuum.
+    expect((await tech.get<Conversion>('/api/units-conversion?value=25&from=inHgV&to=kPa&altitudeM=2000')).status).toBe(422)
+  })
+
   it('answers 400 for mixed kinds or bad numbers, 422 below a perfect vacuum, 401 signed out', async () => {
     const tech = await signedIn(DEMO.tech)
     for (const q of ['value=1&from=psig&to=C', 'value=abc&from=psig&to=kPa', 'value=1&from=inHg&to=kPa', 'from=kPa&to=bar']) {

@@ -33,10 +33,11 @@ describe('formatFigure', () => {
 })
 
 describe('PRESSURE_LABELS', () => {
-  it('says gauge or absolute for every unit', () => {
+  it('says gauge, vacuum or absolute for every unit', () => {
     for (const [unit, label] of Object.entries(PRESSURE_LABELS)) {
-      expect(label.gauge, unit).toBe(unit.endsWith('g'))
-      expect(label.short, unit).toMatch(label.gauge ? /g$/ : /(abs|a)$/)
+      // Gauge units and inches of mercury vacuum both read against the local atmosphere.
+      expect(label.gauge, unit).toBe(unit.endsWith('g') || unit === 'inHgV')
+      expect(label.short, unit).toMatch(label.gauge ? /(g|vac)$/ : /(abs|a)$/)
     }
   })
 })

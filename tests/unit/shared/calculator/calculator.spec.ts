@@ -29,19 +29,21 @@ describe('saturationLookup', () => {
   })
 })
 
+const display = { unit: 'kPag', atmosphericKpa: 101.325 } as const
+
 describe('standingCheck', () => {
   it('goes both ways for ethane at 30 kg/m³ and 20 °C', () => {
     const info = resolveRefrigerant('R170')
     // 1992.3 kPa: Bücker & Wagner 2006 ethane EOS at 20 °C and 30 kg/m³, as computed with CoolProp 8.0.0
-    const there = standingCheck(info, { mode: 'charge', designation: 'R170', ambientC: 20, volumeL: 10, chargeG: 300 })
+    const there = standingCheck(info, { mode: 'charge', designation: 'R170', ambientC: 20, volumeL: 10, chargeG: 300, display })
     expect(there).toMatchObject({ mode: 'charge', phase: 'gas', pressureKpa: expect.closeTo(1992.3, 0) })
-    const back = standingCheck(info, { mode: 'pressure', designation: 'R170', ambientC: 20, volumeL: 10, pressureKpa: 1992.3 })
+    const back = standingCheck(info, { mode: 'pressure', designation: 'R170', ambientC: 20, volumeL: 10, pressure: { kpa: 1992.3 }, display })
     expect(back).toMatchObject({ mode: 'pressure', chargeG: expect.closeTo(300, 0), chargeIsMinimum: false })
   })
 
   it('gives a charge for a shifted reading only when the volume is known', () => {
     const info = resolveRefrigerant('R170')
-    const req = { mode: 'shift', designation: 'R170', ambientC: 20, referencePressureKpa: 1992.3, referenceAmbientC: 20 } as const
+    const req = { mode: 'shift', designation: 'R170', ambientC: 20, referencePressureKpa: 1992.3, referenceAmbientC: 20, display } as const
     expect(standingCheck(info, req)).not.toHaveProperty('chargeG')
     expect(standingCheck(info, { ...req, volumeL: 10 })).toMatchObject({ chargeG: expect.closeTo(300, 0) })
   })
@@ -51,7 +53,7 @@ describe('standingCheck refuses fills beyond the equation of state', () => {
   it('names the range instead of printing an absurd pressure', () => {
     const info = resolveRefrigerant('R1150')
     // 1000 kg/m³ of ethylene at 20 °C is far denser than its liquid: a typing slip (physics, no source needed)
-    expect(() => standingCheck(info, { mode: 'charge', designation: 'R1150', ambientC: 20, volumeL: 1, chargeG: 1000 })).toThrow(/beyond the range of its equation of state \(0 to/)
-    expect(() => standingCheck(resolveRefrigerant('R170'), { mode: 'charge', designation: 'R170', ambientC: 20, volumeL: 1e-300, chargeG: 1e7 })).toThrow(OutOfRangeError)
+    expect(() => standingCheck(info, { mode: 'charge', designation: 'R1150', ambientC: 20, volumeL: 1, chargeG: 1000, display })).toThrow(/beyond the range of its equation of state \(0 to/)
+    expect(() => standingCheck(resolveRefrigerant('R170'), { mode: 'charge', designation: 'R170', ambientC: 20, volumeL: 1e-300, chargeG: 1e7, display })).toThrow(OutOfRangeError)
   })
 })

@@ -42,6 +42,12 @@ export const SATURATION: Record<Designation, FluidRef> = {
   R410A: { source: 'Lemmon 2003 pseudo-pure EOS via CoolProp 8.0.0', sat: [{ c: -50, kpa: 108.98, dewKpa: 108.55 }, { c: -40, kpa: 175.5, dewKpa: 174.85 }, { c: -20, kpa: 400.69, dewKpa: 399.3 }, { c: 0, kpa: 800.71, dewKpa: 798.08 }, { c: 25, kpa: 1657.2, dewKpa: 1652.1 }, { c: 40, kpa: 2425.6, dewKpa: 2418.6 }] },
   // Span & Wagner 1996 (CO2) EOS via CoolProp 8.0.0; -20 and 0 °C agree with the Ohio University CO2 table
   R744: { source: 'Span & Wagner 1996 EOS via CoolProp 8.0.0', sat: [{ c: -56.558, kpa: 517.96 }, { c: -40, kpa: 1004.5 }, { c: -20, kpa: 1969.6 }, { c: 0, kpa: 3485.1 }, { c: 20, kpa: 5729.1 }, { c: 30, kpa: 7213.7 }] },
+  // Platzer, Polt & Maurer 1990 (R13) EOS via CoolProp 8.0.0
+  R13: { source: 'Platzer et al. 1990 EOS via CoolProp 8.0.0', sat: [{ c: -100, kpa: 33.198 }, { c: -81.5, kpa: 100.85 }, { c: -60, kpa: 280.15 }, { c: -40, kpa: 602.85 }, { c: -20, kpa: 1142.2 }, { c: 0, kpa: 1971 }, { c: 20, kpa: 3182 }] },
+  // Marx, Pruß & Wagner 1992 (R12) EOS via CoolProp 8.0.0
+  R12: { source: 'Marx et al. 1992 EOS via CoolProp 8.0.0', sat: [{ c: -60, kpa: 22.615 }, { c: -40, kpa: 64.087 }, { c: -29.8, kpa: 101.12 }, { c: -20, kpa: 150.7 }, { c: 0, kpa: 308.15 }, { c: 25, kpa: 650.57 }, { c: 50, kpa: 1216.6 }] },
+  // Mixture model (Kunz–Wagner form, Bell & Lemmon 2016 R13/R23 parameters) as computed with CoolProp 8.0.0 (HEOS backend, R13&R23 at 40.1/59.9 mass %); bubble/dew
+  R503: { source: 'CoolProp 8.0.0 mixture model R23/R13 40.1/59.9', sat: [{ c: -100, kpa: 47.566, dewKpa: 47.528 }, { c: -90, kpa: 88.919, dewKpa: 88.914 }, { c: -80, kpa: 154.53, dewKpa: 154.37 }, { c: -60, kpa: 392.91, dewKpa: 391.20 }, { c: -40, kpa: 840.47, dewKpa: 834.36 }, { c: -20, kpa: 1587.6, dewKpa: 1573.4 }, { c: 0, kpa: 2741.0, dewKpa: 2717.7 }] },
   // Gao et al. 2020 (ammonia) EOS via CoolProp 8.0.0 (NIST WebBook uses Tillner-Roth 1993: ~0.3 % apart)
   R717: { source: 'Gao et al. 2020 EOS via CoolProp 8.0.0', sat: [{ c: -40, kpa: 71.633 }, { c: -33.33, kpa: 101.25 }, { c: 0, kpa: 429.25 }, { c: 25, kpa: 1002.7 }, { c: 40, kpa: 1554.5 }] },
 }
@@ -57,5 +63,29 @@ export const GAS_DENSITY: Partial<Record<Designation, { c: number; kpa: number; 
     R50: [3.321, 6.705, 10.151, 3.264, 6.585, 9.963],
     R744: [9.276, 19.099, 29.558, 9.107, 18.716, 28.906],
     R508B: [20.444, 42.923, 68.006, 20.048, 41.952, 66.179],
+    R13: [22.5436, 47.7997, 76.8327, 22.0992, 46.6689, 74.5837],
+    R503: [18.6779, 39.1718, 61.9905, 18.3181, 38.2944, 60.3499],
   }) as [Designation, number[]][]).map(([d, v]) => [d, v.map((rho, i) => ({ c: i < 3 ? 20 : 25, kpa: [500, 1000, 1500][i % 3]!, rho }))]),
 )
+// R12 condenses at 0.57 MPa at 20 °C: its gas points are at 0.2/0.3/0.5 MPa (Marx et al. 1992 EOS via CoolProp 8.0.0).
+GAS_DENSITY.R12 = [10.3413, 15.8688, 27.8318, 10.1444, 15.5448, 27.1638].map((rho, i) => ({ c: i < 3 ? 20 : 25, kpa: [200, 300, 500][i % 3]!, rho }))
+
+/**
+ * Cross-checks against sources independent of the equation of state the module uses. Each names its source;
+ * `tolPercent` is the agreement the source's own accuracy allows.
+ */
+export interface IndependentCheck { d: Designation; source: string; tolPercent: number; sat: SatPoint[] }
+export const INDEPENDENT: IndependentCheck[] = [
+  // Vapour-pressure equation fitted to the measurements and EOS of Magee, Outcalt & Ely 2000 (Int. J. Thermophys. 21,
+  // 1097–1121; 92–350 K), Tc 302.0 K, pc 3879 kPa, n = −6.9311, 1.8281, −2.1901, −3.8177, 2.0803 on θ^1, 1.5, 2.5, 6, 8
+  // (the form REFPROP uses, coefficients as distributed with the pychemqt library); values computed from it.
+  {
+    d: 'R13', source: 'Magee, Outcalt & Ely 2000 vapour-pressure equation (R13 measurements 92–350 K)', tolPercent: 0.5,
+    sat: [{ c: -100, kpa: 33.240 }, { c: -81.48, kpa: 101.293 }, { c: -60, kpa: 281.03 }, { c: -40, kpa: 603.80 }, { c: -20, kpa: 1141.56 }, { c: 0, kpa: 1966.71 }, { c: 20, kpa: 3175.45 }],
+  },
+  // Çengel & Boles, Thermodynamics: An Engineering Approach, saturated refrigerant-12 table (older editions), from memory.
+  {
+    d: 'R12', source: 'Çengel & Boles refrigerant-12 saturation table (from memory)', tolPercent: 0.3,
+    sat: [{ c: -40, kpa: 64.17 }, { c: -20, kpa: 150.93 }, { c: 0, kpa: 308.61 }, { c: 20, kpa: 567.29 }, { c: 40, kpa: 960.65 }],
+  },
+]

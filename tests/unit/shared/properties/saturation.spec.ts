@@ -3,8 +3,8 @@ import { DESIGNATIONS, findRefrigerant, glideK, OutOfRangeError, saturationPress
 import { SATURATION } from './reference-points'
 
 // Tolerances: 0.2 % on pressure and 0.05 K on temperature for pure and pseudo-pure fluids; 1 % / 0.3 K for
-// the R508B mixture model, whose reference values are given to 3–4 digits only.
-const isMix = (d: Designation) => d === 'R508B'
+// the R508B and R503 mixture models, whose reference values are given to 3–4 digits only.
+const isMix = (d: Designation) => d === 'R508B' || d === 'R503'
 const relTol = (d: Designation) => (isMix(d) ? 0.01 : d === 'R717' ? 0.003 : 0.002)
 
 describe('saturation pressure from temperature (reference EOS values, sources per fluid in reference-points.ts)', () => {

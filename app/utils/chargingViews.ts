@@ -1,0 +1,143 @@
+/**
+ * What the calculator's charge-planning cards show, computed in the browser from typed text with the same
+ * shared modules the API runs (no round trip). Pure functions, unit-tested without a page.
+ */
+import type { ZodType } from 'zod'
+import { ChargingBodySchema, SubstitutionBodySchema } from '#shared/schemas/charging'
+import type { ChargingDto, SubstitutionDto } from '#shared/types/charging-dto'
+import type { UnitStageDto } from '#shared/types/equipment-dto'
+import { chargingCheck, substitutionPlan } from '#shared/utils/calculator'
+import type { SubstitutionBasis } from '#shared/utils/charging'
+import { findRefrigerant, toKpaAbs, type Designation, type PressureUnit } from '#shared/utils/properties'
+import { propertyProblem } from './calculatorViews'
+import { parseDecimal } from './figures'
+
+/** A card's answer: field errors beside the inputs, the result once it computes, or the models' refusal in their words. */
+export interface FormView<F extends string, R> {
+  errors: Partial<Record<F, string>>
+  result?: R
+  problem?: string
+}
+
+/** Reads typed numbers, noting bad ones in `errors`; undefined for an empty or invalid field. */
+function reader<F extends string>(errors: Partial<Record<F, string>>) {
+  return (field: F, text: string): number | undefined => {
+    const typed = parseDecimal(text)
+    if (typed.state === 'invalid') errors[field] = typed.message
+    return typed.state === 'ok' ? typed.value : undefined
+  }
+}
+
+/**
+ * Checks `body` with the route's own schema (issues go beside the fields `fieldOf` names) and computes the
+ * answer; property errors become the view's problem.
+ */
+function checkedView<F extends string, T, R>(errors: Partial<Record<F, string>>, schema: ZodType<T>, body: unknown, fieldOf: Record<string, F>, compute: (input: T) => R): FormView<F, R> {
+  const parsed = schema.safeParse(body)
+  if (!parsed.success) {
+    let unplaced: string | undefined
+    for (const issue of parsed.error.issues) {
+      const field = fieldOf[issue.path.map(String).join('.')]
+      if (field) errors[field] ??= issue.message
+      else unplaced ??= issue.message
+    }
+    return unplaced ? { errors, problem: unplaced } : { errors }
+  }
+  try {
+    return { errors, result: compute(parsed.data) }
+  } catch (error) {
+    return { errors, problem: propertyProblem(error) }
+  }
+}
+
+/** What a picked unit stage brings to a card: its refrigerant (when known), nameplate charge and volume as typed text. */
+export function stageFields(stage: UnitStageDto): { designation?: Designation; chargeG: string; volumeL: string } {
+  const known = findRefrigerant(stage.refrigerant)
+  return {
+    ...(known ? { designation: known.designation } : {}),
+    chargeG: stage.chargeG !== null ? String(stage.chargeG) : '',
+    volumeL: stage.volumeL !== null ? String(stage.volumeL) : '',
+  }
+}
+
+export interface SubstitutionForm {
+  from: Designation
+  chargeG: string
+  volumeL: string
+  ambientC: string
+  to: Designation
+  basis: SubstitutionBasis
+  evaporatingC: string
+  condensingC: string
+  designPressure: string
+  designUnit: PressureUnit
+  /** The unit of the technician's gauge, for the reading to charge to. */
+  displayUnit: PressureUnit
+}
+export type SubstitutionField = 'chargeG' | 'volumeL' | 'ambientC' | 'evaporatingC' | 'condensingC' | 'designPressure'
+export type SubstitutionView = FormView<SubstitutionField, SubstitutionDto>
+
+const SUBSTITUTION_FIELDS: Record<string, SubstitutionField> = {
+  'from.chargeG': 'chargeG', volumeL: 'volumeL', ambientC: 'ambientC', evaporatingC: 'evaporatingC', condensingC: 'condensingC', designPressureKpa: 'designPressure',
+}
+
+/** The three-basis plan for the typed stage, once the nameplate charge, volume and ambient are there. */
+export function substitutionView(form: SubstitutionForm, atmosphereKpa: number): SubstitutionView {
+  const errors: SubstitutionView['errors'] = {}
+  const read = reader(errors)
+  const n = {
+    chargeG: read('chargeG', form.chargeG), volumeL: read('volumeL', form.volumeL), ambientC: read('ambientC', form.ambientC),
+    evaporatingC: read('evaporatingC', form.evaporatingC), condensingC: read('condensingC', form.condensingC), design: read('designPressure', form.designPressure),
+  }
+  let designPressureKpa: number | undefined
+  try {
+    designPressureKpa = n.design === undefined ? undefined : toKpaAbs(n.design, form.designUnit, atmosphereKpa)
+  } catch (error) {
+    errors.designPressure = propertyProblem(error)
+  }
+  if (n.chargeG === undefined || n.volumeL === undefined || n.ambientC === undefined) return { errors }
+  const body = {
+    volumeL: n.volumeL, ambientC: n.ambientC, from: { designation: form.from, chargeG: n.chargeG }, to: form.to, basis: form.basis,
+    evaporatingC: n.evaporatingC, condensingC: n.condensingC, designPressureKpa, unit: form.displayUnit, atmosphericKpa: atmosphereKpa,
+  }
+  return checkedView(errors, SubstitutionBodySchema, body, SUBSTITUTION_FIELDS, substitutionPlan)
+}
+
+/** A planned charge handed from the substitution planner to the charging card. */
+export interface ChargeTarget { designation: Designation; chargeG: number; volumeL: number; ambientC: number; unit: PressureUnit }
+
+export interface ChargingForm {
+  designation: Designation
+  targetG: string
+  volumeL: string
+  ambientC: string
+  by: 'pressure' | 'weight'
+  pressure: string
+  pressureUnit: PressureUnit
+  addedG: string
+  startG: string
+}
+export type ChargingField = 'targetG' | 'volumeL' | 'ambientC' | 'pressure' | 'addedG' | 'startG'
+export type ChargingView = FormView<ChargingField, ChargingDto>
+
+const CHARGING_FIELDS: Record<string, ChargingField> = {
+  targetChargeG: 'targetG', volumeL: 'volumeL', ambientC: 'ambientC', pressure: 'pressure', addedG: 'addedG', startG: 'startG', unit: 'pressure',
+}
+
+/** Grams now, to go and % of target from a standing-pressure reading, or the pressure to expect from weighed grams. */
+export function chargingView(form: ChargingForm, atmosphereKpa: number): ChargingView {
+  const errors: ChargingView['errors'] = {}
+  const read = reader(errors)
+  const n = {
+    targetG: read('targetG', form.targetG), volumeL: read('volumeL', form.volumeL), ambientC: read('ambientC', form.ambientC),
+    pressure: read('pressure', form.pressure), addedG: read('addedG', form.addedG), startG: read('startG', form.startG),
+  }
+  const reading = form.by === 'pressure' ? n.pressure : n.addedG
+  if (n.targetG === undefined || n.volumeL === undefined || n.ambientC === undefined || reading === undefined) return { errors }
+  const body = {
+    designation: form.designation, targetChargeG: n.targetG, volumeL: n.volumeL, ambientC: n.ambientC,
+    ...(form.by === 'pressure' ? { pressure: n.pressure } : { addedG: n.addedG, startG: n.startG ?? 0 }),
+    unit: form.pressureUnit, atmosphericKpa: atmosphereKpa,
+  }
+  return checkedView(errors, ChargingBodySchema, body, CHARGING_FIELDS, chargingCheck)
+}

@@ -1,0 +1,59 @@
+import { describe, expect, it } from 'vitest'
+import { chargingView, substitutionView, type ChargingForm, type SubstitutionForm } from '~/utils/chargingViews'
+
+// Figures: R13 (Platzer 1990) and R1150 (Smukala 2000) EOS as computed with CoolProp 8.0.0.
+const sub: SubstitutionForm = {
+  from: 'R13', chargeG: '600', volumeL: '12', ambientC: '22', to: 'R1150', basis: 'standing-pressure',
+  evaporatingC: '−85', condensingC: '', designPressure: '', designUnit: 'barg', displayUnit: 'psig',
+}
+
+describe('substitutionView', () => {
+  it('plans from typed text (decimal comma and typographic minus accepted)', () => {
+    const v = substitutionView({ ...sub, volumeL: '12,0' }, 101.325)
+    expect(v.errors).toEqual({})
+    expect(v.result!.chargeG).toBeCloseTo(153.8, 1)
+    expect(v.result!.chargeTo!.text).toBe('137.6 psig')
+    expect(v.result!.plans[2]).toMatchObject({ available: true, chargeG: expect.closeTo(211.2, 1) })
+  })
+
+  it('waits for the nameplate charge, volume and ambient, and puts bad numbers beside their fields', () => {
+    expect(substitutionView({ ...sub, chargeG: '' }, 101.325)).toEqual({ errors: {} })
+    expect(substitutionView({ ...sub, volumeL: 'lots' }, 101.325).errors.volumeL).toMatch(/Type a number/)
+    expect(substitutionView({ ...sub, volumeL: '0' }, 101.325).errors.volumeL).toMatch(/above 0 L/)
+    expect(substitutionView({ ...sub, basis: 'liquid-volume', evaporatingC: '' }, 101.325).errors.evaporatingC).toMatch(/evaporating temperature/)
+  })
+
+  it('converts a gauge design pressure with the local atmosphere and warns against it', () => {
+    // 25 barg at sea level = 2601.3 kPa abs; the same-mass plan stands at 3363.8 kPa abs.
+    const v = substitutionView({ ...sub, basis: 'mass', designPressure: '25' }, 101.325)
+    expect(v.result!.designPressureKpa).toBeCloseTo(2601.325, 3)
+    expect(v.result!.warnings[0]).toMatch(/^DANGER/)
+    expect(substitutionView({ ...sub, designPressure: '-5' }, 101.325).errors.designPressure).toMatch(/perfect vacuum/)
+  })
+
+  it('shows a state outside the models as a problem in their words', () => {
+    expect(substitutionView({ ...sub, ambientC: '900' }, 101.325).problem).toMatch(/defined from/)
+    expect(substitutionView({ ...sub, basis: 'liquid-volume', evaporatingC: '15' }, 101.325).problem).toMatch(/9\.2 °C/)
+  })
+})
+
+const charging: ChargingForm = { designation: 'R1150', targetG: '153.8', volumeL: '12', ambientC: '22', by: 'pressure', pressure: '100', pressureUnit: 'psig', addedG: '', startG: '' }
+
+describe('chargingView', () => {
+  it('from a gauge reading: 100 psig is 113.9 g, 74.1 % of the target', () => {
+    const v = chargingView(charging, 101.325)
+    expect(v.result!.chargeNowG).toBeCloseTo(113.9, 1)
+    expect(v.result!.percentOfTarget).toBeCloseTo(74.06, 1)
+  })
+
+  it('reads the same gauge figure against a thinner atmosphere at altitude: less gas', () => {
+    expect(chargingView(charging, 79.495).result!.chargeNowG).toBeLessThan(113.9)
+  })
+
+  it('from grams weighed in, and field errors beside the inputs', () => {
+    const w = chargingView({ ...charging, by: 'weight', addedG: '120', startG: '' }, 101.325)
+    expect(w.result!.chargeNowG).toBe(120)
+    expect(chargingView({ ...charging, targetG: '0' }, 101.325).errors.targetG).toMatch(/above 0 g/)
+    expect(chargingView({ ...charging, pressure: '-20' }, 101.325).problem).toMatch(/perfect vacuum/)
+  })
+})
