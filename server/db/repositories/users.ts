@@ -51,7 +51,8 @@ export async function emailTaken(email: string) {
   return (await User.count({ where: { email: email.toLowerCase() } })) > 0
 }
 
-/** Name of an organisation. */
-export async function organisationName(id: number) {
-  return (await Organisation.findByPk(id))?.name ?? ''
+/** Name and time zone of an organisation. */
+export async function organisationSettings(id: number): Promise<{ name: string; timeZone: string }> {
+  const org = await Organisation.findByPk(id)
+  return { name: org?.name ?? '', timeZone: org?.timeZone ?? 'UTC' }
 }

@@ -1,9 +1,8 @@
 // Figures as people read them: a true minus sign, a fixed number of decimals, the measurement unit
-// always beside the number (joined by a no-break space so the two never wrap apart).
+// always beside the number. Pages keep a figure and its unit on one line with whitespace-nowrap.
 import type { Reading } from '#shared/types/diagnosis'
 import { MEASUREMENT_UNIT_WORDS, measurementSymbol } from '../vocabulary/measurement-units'
 
-const NBSP = '\u00a0'
 /** Shown where a figure is not known. */
 export const NO_FIGURE = '—'
 
@@ -30,7 +29,7 @@ export function formatQuantity(value: number | null | undefined, unit: string, d
   const known = (MEASUREMENT_UNIT_WORDS as Readonly<Record<string, { decimals: number }>>)[unit]
   const places = decimals ?? (known ? known.decimals : naturalDecimals(value))
   const symbol = measurementSymbol(unit)
-  return symbol ? `${formatFigure(value, places)}${NBSP}${symbol}` : formatFigure(value, places)
+  return symbol ? `${formatFigure(value, places)} ${symbol}` : formatFigure(value, places)
 }
 
 /** A reading exactly as it was entered, with its unit: "12 psig", "−80.5 °C", "yes". */
@@ -41,7 +40,7 @@ export function formatReading(reading: Pick<Reading, 'value' | 'unit'>): string 
 
 /** "71 %": a fraction from 0 to 1 as a whole percentage. */
 export function formatPercent(fraction: number): string {
-  return `${Math.round(fraction * 100)}${NBSP}%`
+  return `${Math.round(fraction * 100)} %`
 }
 
 /** "1 site", "3 sites": a count with its noun in the right number. */

@@ -4,10 +4,12 @@
 import { readdir, readFile, stat } from 'node:fs/promises'
 import { join, resolve } from 'node:path'
 import { simpleParser, type AddressObject, type ParsedMail } from 'mailparser'
-import type { User } from '#auth-utils'
 import { sentMessageIds } from '#server/db/repositories/emails'
+import { InvalidStateError, NotFoundError } from '#server/domain/errors'
 import { isOutboxFileName, newestFirst, normaliseMessageId, outboxMessage, outboxSummary, type ParsedOutboxMail } from '#server/domain/outbox/outbox-message'
 import type { OutboxMessageDto, OutboxSummaryDto } from '#shared/types/outbox'
+import type { ServedFile } from '#server/utils/file-response'
+import type { Actor } from './types'
 
 interface Stored {
   mtimeMs: number
@@ -16,9 +18,8 @@ interface Stored {
 }
 
 // Parsing every file on each list request would grow with the outbox; a parsed file is reused
-// until its modification time changes. Bounded so a long-running server does not grow without end.
-const CACHE_LIMIT = 1000
-const parsedFiles = new Map<string, Stored>()
+// while its modification time is the same (the time is part of the key). Files are per machine.
+const parsedFiles = createCache<Stored>('parsed outbox files', { max: 1000 })
 
 function outboxDir(): string {
   return resolve(useRuntimeConfig().smtp.outboxDir || '.data/outbox')
@@ -51,13 +52,10 @@ async function parseFile(dir: string, name: string): Promise<{ parsed: ParsedMai
 async function loadSummary(dir: string, name: string): Promise<Stored | null> {
   try {
     const info = await stat(join(dir, name))
-    const cached = parsedFiles.get(name)
-    if (cached && cached.mtimeMs === info.mtimeMs) return cached
-    const { parsed, fileDate, mtimeMs } = await parseFile(dir, name)
-    const stored = { mtimeMs, fileDate, mail: plain(parsed) }
-    if (parsedFiles.size >= CACHE_LIMIT) parsedFiles.delete(parsedFiles.keys().next().value!)
-    parsedFiles.set(name, stored)
-    return stored
+    return await parsedFiles.load(`${name}|${info.mtimeMs}`, async () => {
+      const { parsed, fileDate, mtimeMs } = await parseFile(dir, name)
+      return { mtimeMs, fileDate, mail: plain(parsed) }
+    })
   } catch {
     // A file being written or damaged is left out of the list rather than failing it.
     return null
@@ -66,10 +64,10 @@ async function loadSummary(dir: string, name: string): Promise<Stored | null> {
 
 const ownedBy = (mail: ParsedOutboxMail, ids: Set<string>) => !!mail.messageId && ids.has(normaliseMessageId(mail.messageId))
 
-/** The organisation's messages in the outbox, newest first. */
-export async function listOutbox(user: User): Promise<OutboxSummaryDto[]> {
+/** `GET /api/outbox`: the organisation's messages in the outbox, newest first. */
+export async function listOutbox(actor: Actor): Promise<OutboxSummaryDto[]> {
   const dir = outboxDir()
-  const [names, ids] = await Promise.all([storedNames(dir), sentMessageIds(user.organisationId)])
+  const [names, ids] = await Promise.all([storedNames(dir), sentMessageIds(actor.organisationId)])
   const items: OutboxSummaryDto[] = []
   for (const name of names) {
     const stored = await loadSummary(dir, name)
@@ -79,29 +77,29 @@ export async function listOutbox(user: User): Promise<OutboxSummaryDto[]> {
 }
 
 // Opens a message only by a name that the folder listing itself returned.
-async function openOwned(user: User, id: string): Promise<{ parsed: ParsedMail; fileDate: Date }> {
+async function openOwned(actor: Actor, id: string): Promise<{ parsed: ParsedMail; fileDate: Date }> {
   const dir = outboxDir()
-  if (!isOutboxFileName(id) || !(await storedNames(dir)).includes(id)) throw notFound('Message')
+  if (!isOutboxFileName(id) || !(await storedNames(dir)).includes(id)) throw new NotFoundError('Message not found')
   let file: Awaited<ReturnType<typeof parseFile>>
   try {
     file = await parseFile(dir, id)
   } catch {
-    throw createError({ status: 422, statusText: 'Unprocessable Entity', message: 'This stored message could not be read; it may be damaged.' })
+    throw new InvalidStateError('This stored message could not be read; it may be damaged.')
   }
-  if (!ownedBy(plain(file.parsed), await sentMessageIds(user.organisationId))) throw notFound('Message')
+  if (!ownedBy(plain(file.parsed), await sentMessageIds(actor.organisationId))) throw new NotFoundError('Message not found')
   return file
 }
 
-/** One message of the organisation with its text, or 404. */
-export async function outboxMessageOr404(user: User, id: string): Promise<OutboxMessageDto> {
-  const { parsed, fileDate } = await openOwned(user, id)
-  return outboxMessage(id, plain(parsed), fileDate)
+/** `GET /api/outbox/{id}`: one message of the organisation with its text, or 404. */
+export async function outboxMessageOf(actor: Actor, input: { messageId: string }): Promise<OutboxMessageDto> {
+  const { parsed, fileDate } = await openOwned(actor, input.messageId)
+  return outboxMessage(input.messageId, plain(parsed), fileDate)
 }
 
-/** The bytes of one attachment of a message of the organisation, or 404. */
-export async function outboxAttachmentOr404(user: User, id: string, index: number) {
-  const { parsed } = await openOwned(user, id)
-  const attachment = parsed.attachments[index]
-  if (!attachment) throw notFound('Attachment')
-  return { bytes: attachment.content, contentType: attachment.contentType, filename: attachment.filename || `attachment-${index + 1}` }
+/** `GET /api/outbox/{id}/attachments/{index}`: the bytes of one attachment of a message of the organisation, or 404. */
+export async function outboxAttachment(actor: Actor, input: { messageId: string; index: number }): Promise<ServedFile> {
+  const { parsed } = await openOwned(actor, input.messageId)
+  const attachment = parsed.attachments[input.index]
+  if (!attachment) throw new NotFoundError('Attachment not found')
+  return { bytes: attachment.content, mime: attachment.contentType, name: attachment.filename || `attachment-${input.index + 1}` }
 }

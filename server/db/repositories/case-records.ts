@@ -1,11 +1,15 @@
+// Reading a case record: the full record in one statement, its current state for a change, the
+// case list with filters, and a unit's refrigerant log.
 import { Op, QueryTypes, type Transaction, type WhereOptions } from 'sequelize'
-import type { CaseClosure, CaseDto, CaseEventDto, CaseListItem, CaseReading, CaseTestResult, EmailDto, RefrigerantTransactionDto, UploadDto } from '#shared/types/cases'
+import type { CaseClosure, CaseDto, CaseEventDto, CaseListItem, CaseReading, CaseTestResult, EmailDto, RefrigerantTransactionDto } from '#shared/types/cases'
 import type { RankResponse, Symptom } from '#shared/types/diagnosis'
-import type { CaseState, NewEvent } from '#server/domain/cases/case-record'
-import { CaseEvent, Customer, OutboundEmail, RefrigerantTransaction, ServiceCase, Site, Unit, Upload, User } from '../models'
 import type { UnitDto } from '#shared/types/equipment-dto'
+import type { CaseState } from '#server/domain/cases/case-record'
+import { Customer, RefrigerantTransaction, ServiceCase, Site, Unit, User } from '../models'
 import { findUnit } from './equipment'
+import { uploadUrls } from './uploads'
 
+/** A case's current state with what a change needs besides it. */
 export interface LockedCase extends CaseState {
   id: number
   organisationId: number
@@ -14,32 +18,7 @@ export interface LockedCase extends CaseState {
   notes: string
 }
 
-/** Opens a case on a unit of the organisation; returns its id. */
-export async function insertCase(
-  input: { organisationId: number; unitId: number; technicianId: number; complaint: string; symptoms: Symptom[]; openedAt?: Date },
-  events: NewEvent[],
-  transaction: Transaction,
-): Promise<number> {
-  const created = await ServiceCase.create(
-    { ...input, ranking: null, closure: null, closedAt: null, openedAt: input.openedAt ?? new Date() },
-    { transaction },
-  )
-  await appendEvents(created.id, input.technicianId, events, transaction, input.openedAt)
-  return created.id
-}
-
-/** Appends timeline events; the table itself refuses later edits. */
-export async function appendEvents(caseId: number, byUserId: number | null, events: NewEvent[], transaction: Transaction, at?: Date) {
-  if (!events.length) return
-  // Every step of every case passes here, so it is one plain multi-row INSERT.
-  const bind: unknown[] = []
-  const rows = events.map((e) => {
-    bind.push(caseId, byUserId, e.type, JSON.stringify(e.payload), at ?? new Date())
-    const n = bind.length
-    return `($${n - 4}, $${n - 3}, $${n - 2}, $${n - 1}::jsonb, $${n})`
-  })
-  await CaseEvent.sequelize!.query(`INSERT INTO case_events (case_id, by_user_id, type, payload, at) VALUES ${rows.join(', ')}`, { bind, transaction })
-}
+const iso = (d: Date | null) => (d ? d.toISOString() : null)
 
 /** The unit of a case of the organisation, or null. */
 export async function caseUnitId(organisationId: number, id: number): Promise<number | null> {
@@ -63,85 +42,6 @@ export async function readCaseState(organisationId: number, id: number, lockIn?:
   }
 }
 
-/** Saves changed fields of a locked case and bumps its version. */
-export async function saveCase(
-  id: number,
-  changes: Partial<{ symptoms: Symptom[]; readings: CaseReading[]; testResults: CaseTestResult[]; ranking: RankResponse; notes: string; status: 'closed'; closure: CaseClosure; confirmedCauses: CaseClosure['confirmedCauses']; closedAt: Date }>,
-  transaction: Transaction,
-) {
-  const bind: unknown[] = [id]
-  const sets = setClauses(changes, bind)
-  await ServiceCase.sequelize!.query(`UPDATE cases SET ${sets} WHERE id = $1`, { bind, transaction })
-}
-
-type CaseChanges = Parameters<typeof saveCase>[1]
-const COLUMNS: Record<string, string> = {
-  symptoms: 'symptoms', readings: 'readings', testResults: 'test_results', ranking: 'ranking', notes: 'notes', status: 'status',
-  closure: 'closure', confirmedCauses: 'confirmed_causes', closedAt: 'closed_at',
-}
-const JSON_COLUMNS = new Set(['symptoms', 'readings', 'testResults', 'ranking', 'closure', 'confirmedCauses'])
-
-/** SET clauses of a plain UPDATE: JSON columns go as JSON text, and the version goes up with them. */
-function setClauses(changes: CaseChanges, bind: unknown[]): string {
-  const sets = Object.entries(changes).map(([key, value]) => {
-    bind.push(JSON_COLUMNS.has(key) ? JSON.stringify(value) : value)
-    return `${COLUMNS[key]} = $${bind.length}${JSON_COLUMNS.has(key) ? '::jsonb' : ''}`
-  })
-  return [...sets, 'lock_version = lock_version + 1', 'updated_at = now()'].join(', ')
-}
-
-/**
- * Saves a change and appends its events in one statement, only if the case is still open and at
- * `lockVersion` (optimistic concurrency). Returns false when someone changed it first.
- */
-export async function commitIfUnchanged(id: number, lockVersion: number, changes: CaseChanges, byUserId: number | null, events: NewEvent[]): Promise<boolean> {
-  if (!events.length) throw new Error('A case change always records at least one event')
-  const bind: unknown[] = [id, lockVersion]
-  const sets = setClauses(changes, bind)
-  const now = new Date()
-  const rows = events.map((e) => {
-    bind.push(byUserId, e.type, JSON.stringify(e.payload), now)
-    const n = bind.length
-    return `($${n - 3}::int, $${n - 2}::text, $${n - 1}::jsonb, $${n}::timestamptz)`
-  })
-  const [inserted] = await ServiceCase.sequelize!.query(
-    `WITH upd AS (UPDATE cases SET ${sets} WHERE id = $1 AND lock_version = $2 AND status = 'open' RETURNING id)
-     INSERT INTO case_events (case_id, by_user_id, type, payload, at)
-     SELECT upd.id, v.by_user_id, v.type, v.payload, v.at FROM upd, (VALUES ${rows.join(', ')}) AS v(by_user_id, type, payload, at)
-     RETURNING case_events.id`,
-    { bind },
-  )
-  return (inserted as unknown[]).length > 0
-}
-
-/** Records refrigerant added to or recovered from a unit's stages. */
-export async function insertTransactions(
-  base: { organisationId: number; caseId: number; unitId: number; byUserId: number | null; at?: Date },
-  items: RefrigerantTransactionDto[],
-  transaction: Transaction,
-) {
-  await RefrigerantTransaction.bulkCreate(
-    items.map((t) => ({ ...base, stage: t.stage, refrigerant: t.refrigerant, grams: t.grams, direction: t.direction, cylinder: t.cylinder, at: base.at ?? new Date() })),
-    { transaction },
-  )
-}
-
-const iso = (d: Date | null) => (d ? d.toISOString() : null)
-
-
-/** An upload row as the API shows it, with the URLs that serve its file and preview. */
-export function uploadDto(u: Upload): UploadDto {
-  return {
-    id: u.id, mime: u.mime, bytes: u.bytes, originalName: u.originalName, purpose: u.purpose,
-    url: `/api/uploads/${u.id}`, thumbUrl: u.thumbKey ? `/api/uploads/${u.id}?thumb=1` : null, createdAt: u.createdAt.toISOString(),
-  }
-}
-
-/** An e-mail row as the API shows it. */
-export function emailDto(e: OutboundEmail): EmailDto {
-  return { id: e.id, toAddress: e.toAddress, subject: e.subject, status: e.status, attempts: e.attempts, lastError: e.lastError, sentAt: iso(e.sentAt) }
-}
-
 // One round trip for the whole record: the case row, its timeline with people's names, its
 // refrigerant transactions, uploads and e-mails, each aggregated as JSON. This runs after every
 // step a technician takes, so it is kept to a single statement.
@@ -154,7 +54,7 @@ SELECT c.id, c.unit_id, c.status, c.complaint, c.symptoms, c.readings, c.test_re
           FROM refrigerant_transactions r WHERE r.case_id = c.id) AS transactions,
        (SELECT coalesce(json_agg(json_build_object('id', f.id, 'mime', f.mime, 'bytes', f.bytes, 'originalName', f.original_name, 'purpose', f.purpose, 'thumbKey', f.thumb_key, 'createdAt', f.created_at) ORDER BY f.id), '[]')
           FROM uploads f WHERE f.case_id = c.id AND f.organisation_id = c.organisation_id) AS uploads,
-       (SELECT coalesce(json_agg(json_build_object('id', m.id, 'toAddress', m.to_address, 'subject', m.subject, 'status', m.status, 'attempts', m.attempts, 'lastError', m.last_error, 'sentAt', m.sent_at) ORDER BY m.id), '[]')
+       (SELECT coalesce(json_agg(json_build_object('id', m.id, 'toAddress', m.to_address, 'subject', m.subject, 'status', m.status, 'attempts', m.attempts, 'lastError', m.last_error, 'sentAt', m.sent_at, 'jobId', m.job_id) ORDER BY m.id), '[]')
           FROM outbound_emails m WHERE m.case_id = c.id AND m.organisation_id = c.organisation_id) AS emails
   FROM cases c LEFT JOIN users t ON t.id = c.technician_id
  WHERE c.id = :id AND c.organisation_id = :organisationId`
@@ -199,10 +99,7 @@ export async function findCase(organisationId: number, id: number, knownUnit?: U
     closure: c.closure,
     unit,
     transactions: c.transactions.map((t) => ({ ...t, at: isoText(t.at)! })),
-    uploads: c.uploads.map((u) => ({
-      id: u.id, mime: u.mime, bytes: u.bytes, originalName: u.originalName, purpose: u.purpose,
-      url: `/api/uploads/${u.id}`, thumbUrl: u.thumbKey ? `/api/uploads/${u.id}?thumb=1` : null, createdAt: isoText(u.createdAt)!,
-    })),
+    uploads: c.uploads.map(({ thumbKey, ...u }) => ({ ...u, ...uploadUrls(u.id, thumbKey), createdAt: isoText(u.createdAt)! })),
     emails: c.emails.map((m) => ({ ...m, sentAt: isoText(m.sentAt) })),
   }
 }
@@ -223,7 +120,7 @@ export interface CaseFilters {
 }
 
 /** One page of the organisation's cases, open ones first, with full-text search over complaint and notes. */
-export async function listCases(organisationId: number, f: CaseFilters): Promise<{ items: CaseListItem[]; total: number }> {
+export async function findCases(organisationId: number, f: CaseFilters): Promise<{ items: CaseListItem[]; total: number }> {
   const where: WhereOptions[] = [{ organisationId }]
   if (f.status) where.push({ status: f.status })
   if (f.unitId) where.push({ unitId: f.unitId })
@@ -262,31 +159,9 @@ export async function listCases(organisationId: number, f: CaseFilters): Promise
   }
 }
 
-/** How often each cause was confirmed on the organisation's closed cases of units of one class (or kind). */
-export async function confirmedCauseCounts(organisationId: number, group: { equipmentClass: string } | { kind: string }) {
-  const [column, value] = 'equipmentClass' in group ? ['equipment_class', group.equipmentClass] : ['kind', group.kind]
-  return ServiceCase.sequelize!.query<{ cause: string; stage: string | null; count: number }>(
-    `SELECT elem->>'cause' AS cause, elem->>'stage' AS stage, count(*)::int AS count
-       FROM cases c JOIN units u ON u.id = c.unit_id, jsonb_array_elements(c.confirmed_causes) elem
-      WHERE c.organisation_id = :organisationId AND c.status = 'closed' AND u.${column} = :value
-      GROUP BY 1, 2`,
-    { replacements: { organisationId, value }, type: QueryTypes.SELECT },
-  )
-}
-
 /** Refrigerant log of a unit, newest first. */
 export async function unitTransactions(organisationId: number, unitId: number): Promise<RefrigerantTransactionDto[]> {
   const rows = await RefrigerantTransaction.findAll({ where: { organisationId, unitId }, order: [['at', 'DESC']] })
   return rows.map((t) => ({ id: t.id, stage: t.stage as RefrigerantTransactionDto['stage'], refrigerant: t.refrigerant, grams: t.grams, direction: t.direction, cylinder: t.cylinder, at: t.at.toISOString() }))
 }
 
-/** Confirmed causes and the top of the last ranking of the organisation's latest closed cases. */
-export async function closedCaseRankings(organisationId: number, limit = 500) {
-  const rows = await ServiceCase.sequelize!.query<{ confirmed: { cause: string; stage?: string }[]; ranked: { cause: string; stage?: string }[] | null }>(
-    `SELECT confirmed_causes AS confirmed, jsonb_path_query_array(ranking, '$.causes[0 to 2]') AS ranked
-       FROM cases WHERE organisation_id = :organisationId AND status = 'closed' AND ranking IS NOT NULL
-      ORDER BY closed_at DESC LIMIT :limit`,
-    { replacements: { organisationId, limit }, type: QueryTypes.SELECT },
-  )
-  return rows.map((r) => ({ confirmed: r.confirmed, ranked: r.ranked ?? [] }))
-}
