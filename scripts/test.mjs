@@ -1,7 +1,8 @@
 #!/usr/bin/env node
 // `npm test`: installs what is missing (npm packages, PostgreSQL, Chromium), starts a throwaway
 // PostgreSQL cluster on a free loopback port, migrates and seeds it, then runs every test:
-// typecheck, unit (vitest), build, API (vitest against the built server), browser (Playwright).
+// typecheck, unit and component (vitest), build, API (vitest against the built server, with a
+// second server on the same database for the cache checks), browser (Playwright).
 // Everything it started is stopped at the end, also on failure.
 import { spawn } from 'node:child_process'
 import { join } from 'node:path'
@@ -50,6 +51,7 @@ async function main() {
   const common = { DATABASE_URL: db.databaseUrl, CHROMIUM_PATH: chromium }
   await runStep('typecheck', bin('nuxt'), ['typecheck'])
   await runStep('unit tests', bin('vitest'), ['run', '--project', 'unit'], common)
+  await runStep('component tests', bin('vitest'), ['run', '--project', 'nuxt'], common)
   const built = await runStep('build', process.execPath, ['-e', 'import("./scripts/lib/project.mjs").then(m => m.buildIfStale())'])
   if (!built) return
 

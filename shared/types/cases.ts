@@ -100,6 +100,6 @@ export interface CaseListItem {
   technician: string | null
   openedAt: string
   closedAt: string | null
-  confirmedCauses: { cause: string; stage?: string }[]
-  topCause: { cause: string; stage?: string; probability: number } | null
+  confirmedCauses: { cause: Cause; stage?: Stage }[]
+  topCause: { cause: Cause; stage?: Stage; probability: number } | null
 }

@@ -153,7 +153,7 @@ export async function findCases(organisationId: number, f: CaseFilters): Promise
       return {
         id: c.id, status: c.status, complaint: c.complaint, unitId: c.unitId, unitName: c.unit.name, customer: c.unit.site.customer.name,
         technician: c.technician?.name ?? null, openedAt: c.openedAt.toISOString(), closedAt: iso(c.closedAt),
-        confirmedCauses: c.confirmedCauses, topCause: top ? { cause: top.cause, stage: top.stage, probability: top.probability } : null,
+        confirmedCauses: c.confirmedCauses as CaseListItem['confirmedCauses'], topCause: top ? { cause: top.cause, stage: top.stage, probability: top.probability } : null,
       }
     }),
   }

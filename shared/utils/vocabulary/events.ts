@@ -69,7 +69,7 @@ export function eventDetail(event: Pick<CaseEventDto, 'type'> & Payload, titles:
         .join(' · ')
     case 'case-closed': {
       const confirmed = (p.confirmedCauses as { cause: string; stage?: Stage }[] | undefined) ?? []
-      const causes = confirmed.map((c) => hypothesisLabel(c, { form: 'long', title: titles.causes[c.cause] })).join(', ')
+      const causes = confirmed.map((c) => causeOnStage(c, titles)).join('; ')
       return causes ? `Confirmed: ${causes}` : ''
     }
     case 'report-queued':

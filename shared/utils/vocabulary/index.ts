@@ -16,7 +16,8 @@ export { CAUSE_WORDS, causeLabel, hypothesisLabel } from './causes'
 export { TEST_WORDS, outcomeLabel, testLabel, type TestWordEntry } from './tests'
 export { ROLE_WORDS, roleLabel } from './roles'
 export {
-  CASE_STATE_WORDS, DIRECTION_WORDS, EMAIL_STATE_WORDS, JOB_STATE_WORDS, caseStateLabel, directionLabel, emailStateLabel, jobStateLabel,
+  CASE_STATE_WORDS, DIRECTION_WORDS, EMAIL_STATE_WORDS, JOB_STATE_WORDS, UPLOAD_PURPOSE_WORDS, caseStateLabel, directionLabel, emailStateLabel,
+  jobStateLabel, uploadPurposeLabel,
 } from './states'
 export { EQUIPMENT_CLASS_WORDS, UNIT_KIND_WORDS, equipmentClassLabel, unitKindLabel } from './equipment'
 export { EVENT_WORDS, causeOnStage, eventDetail, eventLabel } from './events'

@@ -15,7 +15,7 @@ export const QUANTITY_WORDS: Readonly<Record<Quantity, WordLabel>> = {
   standingPressure: { short: 'Standing', long: 'Standing pressure (off, equalised)' },
   cabinetTemperature: { short: 'Cabinet', long: 'Cabinet temperature' },
   setpointTemperature: { short: 'Setpoint', long: 'Setpoint' },
-  cascadeHxTemperature: { short: 'Cascade HX', long: 'Cascade heat exchanger temperature' },
+  cascadeHxTemperature: { short: 'Cascade HX', long: 'Cascade heat exchanger' },
   ambientTemperature: { short: 'Room', long: 'Room (ambient) temperature' },
   condenserAirInTemperature: { short: 'Air in', long: 'Condenser air in' },
   condenserAirOutTemperature: { short: 'Air out', long: 'Condenser air out' },

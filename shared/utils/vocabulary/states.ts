@@ -1,7 +1,9 @@
-// States of things people follow: a case, a report e-mail, a background job, a knowledge-base version.
+// States and kinds of things people follow: a case, a report e-mail, a background job, a refrigerant
+// transaction, a stored file.
 import type { CaseStatus, EmailDto } from '#shared/types/cases'
 import type { JobState } from '#shared/types/jobs'
-import type { WordForm, WordLabel } from './words'
+import type { UploadPurpose } from '#shared/utils/uploads'
+import { labelOf, type WordForm, type WordLabel } from './words'
 
 /** A case's state; `long` reads as a sentence subject ("Open case"). */
 export const CASE_STATE_WORDS: Readonly<Record<CaseStatus, WordLabel>> = {
@@ -48,4 +50,16 @@ export const DIRECTION_WORDS: Readonly<Record<'added' | 'recovered', WordLabel>>
 /** "Added" / "Recovered". */
 export function directionLabel(direction: 'added' | 'recovered', form: WordForm = 'short'): string {
   return DIRECTION_WORDS[direction]?.[form] ?? String(direction)
+}
+
+/** What a stored photo or PDF shows. */
+export const UPLOAD_PURPOSE_WORDS: Readonly<Record<UploadPurpose, WordLabel>> = {
+  photo: { short: 'Photo', long: 'A photo of the work' },
+  nameplate: { short: 'Nameplate', long: 'The nameplate' },
+  document: { short: 'Document', long: 'A document (certificate, report)' },
+}
+
+/** "Nameplate"; an unknown purpose reads as a phrase. */
+export function uploadPurposeLabel(purpose: string, form: WordForm = 'short'): string {
+  return labelOf((UPLOAD_PURPOSE_WORDS as Record<string, WordLabel>)[purpose], purpose, form)
 }

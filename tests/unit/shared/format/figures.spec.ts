@@ -22,3 +22,11 @@ describe('figures with their unit', () => {
     expect(formatPressure(204.746, { unit: 'barg', decimals: 2 })).toBe(`1.03${SP}bar g`)
   })
 })
+
+describe('formatFigure', () => {
+  it('uses a true minus and never shows −0', () => {
+    expect(formatFigure(-80, 1)).toBe('\u221280.0')
+    expect(formatFigure(-0.04, 1)).toBe('0.0')
+    expect(formatFigure(157.4134, 1)).toBe('157.4')
+  })
+})
