@@ -12,10 +12,11 @@ import { rankDiagnosis, type LearnedCount } from '#server/domain/diagnosis/rank'
 import { UnavailableError } from '#server/domain/errors'
 import {
   CAUSES, DIMENSION_UNITS, QUANTITY_DIMENSION, STAGES, STAGE_QUANTITIES, SYMPTOMS, TESTS, UNIT_KINDS, UNIT_WIDE_QUANTITIES,
-  type Cause, type RankRequest, type RankResponse, type RankingAgreement, type Stage,
+  type Cause, type RankRequest, type RankResponse, type RankingAgreement, type Stage, type UnitKind,
 } from '#shared/types/diagnosis'
 import type { DiagnosisVocabularyDto, DiagnosticTestDto } from '#shared/types/diagnosis-catalogue'
-import { causeLabel, inPlainWords, type KnowledgeBaseTitles } from '#shared/utils/vocabulary'
+import type { EquipmentClass } from '#shared/types/equipment'
+import { causeLabel, equipmentClassLabel, inPlainWords, unitKindLabel, type KnowledgeBaseTitles } from '#shared/utils/vocabulary'
 import type { Actor } from './types'
 
 /** Which closed cases teach the priors: those of units of one equipment class, or else of one kind. */
@@ -30,6 +31,7 @@ const titleBooks = createCache<KnowledgeBaseTitles>('knowledge-base titles', { m
 export interface RankingContext {
   kb: KnowledgeBase
   counts: LearnedCount[]
+  /** The group in words, for the note on where the starting odds come from. */
   group: string
   /** Identifies kb, counts and group together; equal keys rank equal requests equally. */
   key: string
@@ -54,7 +56,8 @@ export async function publishedKnowledgeBase(organisationId: number, stamps?: Ca
   return loadKnowledgeBase(organisationId, current.knowledgeBaseVersionId)
 }
 
-const groupLabel = (group: PriorGroup) => ('equipmentClass' in group ? group.equipmentClass : group.kind)
+const groupLabel = (group: PriorGroup) =>
+  ('equipmentClass' in group ? equipmentClassLabel(group.equipmentClass as EquipmentClass) : unitKindLabel(group.kind as UnitKind)).toLowerCase()
 
 async function learnedCounts(stamps: CacheStamps, group: PriorGroup): Promise<LearnedCount[]> {
   const key = `${stamps.organisationId}|${stamps.learnedGeneration}|${stamps.equipmentGeneration}|${JSON.stringify(group)}`
@@ -82,7 +85,7 @@ export async function rankingContext(stamps: CacheStamps, group: PriorGroup): Pr
 export async function rankInContext(context: RankingContext, request: RankRequest): Promise<RankResponse> {
   return rankings.load(`${context.key}|${JSON.stringify(request)}`, async () => {
     const ranked = await rankDiagnosis(context.kb, request, { learnedCounts: context.counts, equipmentClass: context.group })
-    return { ...ranked, warnings: ranked.warnings.map(inPlainWords) }
+    return { ...ranked, warnings: ranked.warnings.map(inPlainWords), priorNote: inPlainWords(ranked.priorNote) }
   })
 }
 

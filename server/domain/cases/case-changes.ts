@@ -56,7 +56,7 @@ export function assertStagesOf(unit: UnitDto, items: readonly { stage?: Stage }[
     if (!item.stage || stages.includes(item.stage)) return
     const message = `${stageLabel(item.stage)} is not a stage of ${unit.name}; it has ${stageList(stages)}`
     fieldErrors[`${field}.${i}.stage`] = [message]
-    messages.push(fieldMessage([field, i, 'stage'], message))
+    messages.push(fieldMessage([field, i], message))
   })
   if (messages.length) throw new BadInputError(messages.join('; '), fieldErrors)
 }

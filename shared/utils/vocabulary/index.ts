@@ -22,5 +22,5 @@ export {
 export { EQUIPMENT_CLASS_WORDS, UNIT_KIND_WORDS, equipmentClassLabel, unitKindLabel } from './equipment'
 export { EVENT_WORDS, causeOnStage, eventDetail, eventLabel } from './events'
 export { FIELD_WORDS, fieldMessage, fieldName } from './fields'
-export { inPlainWords } from './text'
+export { inPlainWords, labelOfApiWord } from './text'
 export { NO_TITLES, type KnowledgeBaseTitles } from './titles'
