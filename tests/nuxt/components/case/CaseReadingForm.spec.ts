@@ -15,7 +15,7 @@ describe('CaseReadingForm', () => {
     const options = wrapper.findAll('#reading-stage option').map((o) => o.text())
     expect(options).toEqual(['High stage (R290)', 'Low stage (R170)', 'Unit and room'])
     await wrapper.get('form').trigger('submit')
-    const [reading] = wrapper.emitted('submit')![0] as [unknown]
+    const [reading] = wrapper.emitted('submit')![0]!
     expect(reading).toEqual({ quantity: 'suctionPressure', stage: 'low', value: 157.41, unit: 'kPa' })
   })
 
