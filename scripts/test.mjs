@@ -61,7 +61,11 @@ async function main() {
   const outbox = server.outbox
 
   const served = { ...common, RIMECASE_TEST_BASE_URL: baseUrl, RIMECASE_OUTBOX_DIR: outbox }
-  await runStep('API tests', bin('vitest'), ['run', '--project', 'api'], served)
+  // A second server on the same database: the cache checks change data through one and read it
+  // through the other. It is stopped before the browser tests to leave them the machine.
+  const second = await startServer(db)
+  await runStep('API tests', bin('vitest'), ['run', '--project', 'api'], { ...served, RIMECASE_TEST_SECOND_BASE_URL: second.baseUrl })
+  await second.stop()
   await runStep('browser tests', bin('playwright'), ['test'], served)
   console.log(`\nnpm test wall time: ${((Date.now() - t0) / 1000).toFixed(0)} s`)
 }
