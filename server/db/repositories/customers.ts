@@ -4,7 +4,7 @@ import { Op, UniqueConstraintError, col, fn, literal, where as sqlWhere, type Tr
 import { FieldConflictError, FieldNotFoundError, NotFoundError } from '#server/domain/errors'
 import type { ContactInput, ContactPatch, CustomerInput, CustomerListQuery, CustomerPatch, SiteInput, SitePatch } from '#shared/schemas/equipment'
 import type { ContactDto, CustomerDto, SiteDto } from '#shared/types/equipment-dto'
-import { atmosphericPressureAtAltitude } from '#shared/utils/properties'
+import { siteAtmosphere } from '#shared/utils/format'
 import { Contact, Customer, Site, Unit } from '../models'
 
 /** An ILIKE pattern matching `q` anywhere, with the user's own % and _ taken literally. */
@@ -17,12 +17,9 @@ function contactDto(c: Contact): ContactDto {
 }
 
 function localAtmosphereKpa(altitudeM: number): number | null {
-  try {
-    return Math.round(atmosphericPressureAtAltitude(altitudeM) * 100) / 100
-  } catch {
-    // Older rows may hold an altitude outside the standard-atmosphere formula; show no figure then.
-    return null
-  }
+  const atmosphere = siteAtmosphere(altitudeM)
+  // Older rows may hold an altitude outside the standard-atmosphere formula; show no figure then.
+  return atmosphere.fromAltitude ? Math.round(atmosphere.kpa * 100) / 100 : null
 }
 
 type SiteWithParts = Site & { customer: Customer; contacts: Contact[] }
