@@ -2,8 +2,6 @@ import type { Cause, RankResponse, Reading, Stage, Symptom, TestResult } from '.
 import type { UnitDto } from './equipment-dto'
 import type { UploadDto } from './uploads'
 
-export type { UploadDto }
-
 export const CASE_STATUSES = ['open', 'closed'] as const
 export type CaseStatus = (typeof CASE_STATUSES)[number]
 
