@@ -28,9 +28,11 @@ afterAll(() => sequelize?.close())
 
 describe('two servers on one database', () => {
   it('a unit edited through one server is the unit the other uses on its next case step', async () => {
-    const sites = (await a.get('/api/sites')).body as { id: number }[]
+    // A customer and site of its own, so the demo register stays as the browser tests expect it.
+    const customer = await a.post('/api/customers', { name: `Shared-cache customer ${Date.now()}` })
+    const site = await a.post('/api/sites', { customerId: customer.body.id, name: 'Cache lab', altitudeM: 120 })
     const created = await a.post('/api/units', {
-      name: `Shared-cache freezer ${Date.now()}`, model: 'Icebox 9', serial: `SC-${Date.now()}`, kind: 'cascade', equipmentClass: 'ult-freezer', siteId: sites[0]!.id,
+      name: `Shared-cache freezer ${Date.now()}`, model: 'Icebox 9', serial: `SC-${Date.now()}`, kind: 'cascade', equipmentClass: 'ult-freezer', siteId: site.body.id,
       stages: [{ stage: 'high', refrigerant: 'R404A' }, { stage: 'low', refrigerant: 'R170', chargeG: 90, volumeL: 7.5 }],
     })
     expect(created.status).toBe(201)
