@@ -3,7 +3,7 @@
 // and the timeline events; what a change may do is planned by the pure functions of
 // server/domain/cases/case-changes.ts.
 import type { Transaction } from 'sequelize'
-import { readCacheStamps, type CacheStamps } from '#server/db/repositories/cache-stamps'
+import type { CacheStamps } from '#server/db/repositories/cache-stamps'
 import { caseUnitId, findCase, findCases, readCaseState, type LockedCase } from '#server/db/repositories/case-records'
 import { appendEvents, commitIfUnchanged, insertCase, insertTransactions, saveCase } from '#server/db/repositories/case-writes'
 import { findUnit } from '#server/db/repositories/equipment'
@@ -13,7 +13,7 @@ import { ConflictError, NotFoundError } from '#server/domain/errors'
 import type { AddReadingsInput, AddTestResultInput, CaseListQuery, CloseCaseInput, NewCaseInput, NoteInput, SetSymptomsInput } from '#shared/schemas/cases'
 import type { CaseDto, CaseListItem } from '#shared/types/cases'
 import type { Page, UnitDto } from '#shared/types/equipment-dto'
-import { rankInContext, rankingContext } from './diagnosis'
+import { rankInContext, rankingContext, stampsFor } from './diagnosis'
 import { queueReportEmails } from './reports'
 import type { Actor } from './types'
 
@@ -62,7 +62,7 @@ export async function listCases(actor: Actor, query: CaseListQuery): Promise<Pag
 
 /** `POST /api/cases`: opens a case on a unit of the organisation, ranked from its symptoms. */
 export async function openCase(actor: Actor, input: NewCaseInput, now: Date): Promise<CaseDto> {
-  const stamps = await readCacheStamps(actor.organisationId)
+  const stamps = await stampsFor(actor)
   const unit = await unitAsOf(stamps, input.unitId)
   const context = await rankingContext(stamps, { equipmentClass: unit.equipmentClass })
   const ranking = await rankInContext(context, rankRequestFor(unit, { symptoms: input.symptoms, readings: [], testResults: [] }))
@@ -101,7 +101,7 @@ async function withRanking(change: CaseChange, current: LockedCase, unit: UnitDt
  */
 async function changeCase(actor: Actor, caseId: number, expectedVersion: number | undefined, now: Date, plan: Planner<CaseChange>): Promise<CaseDto> {
   const unitId = await unitIdOfCase(actor.organisationId, caseId)
-  const stamps = await readCacheStamps(actor.organisationId)
+  const stamps = await stampsFor(actor)
   const unit = await unitAsOf(stamps, unitId)
   for (let attempt = 0; attempt < 8; attempt++) {
     const current = await readCaseState(actor.organisationId, caseId)
@@ -127,7 +127,7 @@ async function changeCaseLocked<C extends CaseChange>(
   alsoWrite: (transaction: Transaction, unit: UnitDto, change: C) => Promise<NewEvent[]>,
 ): Promise<CaseDto> {
   const unitId = await unitIdOfCase(actor.organisationId, caseId)
-  const unit = await unitAsOf(await readCacheStamps(actor.organisationId), unitId)
+  const unit = await unitAsOf(await stampsFor(actor), unitId)
   await useDb().transaction(async (transaction) => {
     const current = await readCaseState(actor.organisationId, caseId, transaction)
     if (!current) throw new NotFoundError(CASE_NOT_FOUND)

@@ -37,6 +37,11 @@ export interface RankingContext {
   key: string
 }
 
+/** The actor's organisation's cache stamps as of this request. */
+export function stampsFor(actor: Actor): Promise<CacheStamps> | CacheStamps {
+  return actor.cacheStamps ?? readCacheStamps(actor.organisationId)
+}
+
 // A version's content never changes once stored (publishing makes a new version), so it is
 // cached by its id for as long as it is used.
 async function loadKnowledgeBase(organisationId: number, versionId: number): Promise<KnowledgeBase> {
@@ -91,13 +96,13 @@ export async function rankInContext(context: RankingContext, request: RankReques
 
 /** `POST /api/diagnosis/rank`: ranks causes for a described unit with the organisation's base and priors; saves nothing. */
 export async function rankForActor(actor: Actor, request: RankRequest): Promise<RankResponse> {
-  const stamps = await readCacheStamps(actor.organisationId)
+  const stamps = await stampsFor(actor)
   return rankInContext(await rankingContext(stamps, { kind: request.unit.kind }), request)
 }
 
 /** The published tests with procedures, cautions and outcome words. */
 export async function diagnosticTests(actor: Actor): Promise<DiagnosticTestDto[]> {
-  const kb = await publishedKnowledgeBase(actor.organisationId)
+  const kb = await publishedKnowledgeBase(actor.organisationId, await stampsFor(actor))
   return kb.tests.map((t) => ({
     test: t.slug, title: t.title, minutes: t.minutes, opensSystem: t.opensSystem, hotWork: t.hotWork, stages: t.stages,
     safetyNotes: t.safetyNotes, procedure: t.procedure, outcomes: t.outcomes.map((o) => ({ outcome: o.slug, label: o.label })),
@@ -105,8 +110,8 @@ export async function diagnosticTests(actor: Actor): Promise<DiagnosticTestDto[]
 }
 
 /** The titles the published base stores for causes, tests and outcomes, for labels of words without a vocabulary entry. */
-export async function knowledgeBaseTitles(organisationId: number): Promise<KnowledgeBaseTitles> {
-  const stamps = await readCacheStamps(organisationId)
+export async function knowledgeBaseTitles(organisationId: number, known?: CacheStamps): Promise<KnowledgeBaseTitles> {
+  const stamps = known ?? (await readCacheStamps(organisationId))
   if (stamps.knowledgeBaseVersionId === null) return { causes: {}, tests: {}, outcomes: {} }
   return titleBooks.load(String(stamps.knowledgeBaseVersionId), async () => {
     const kb = await publishedKnowledgeBase(organisationId, stamps)
@@ -120,7 +125,7 @@ export async function knowledgeBaseTitles(organisationId: number): Promise<Knowl
 
 /** The words the rank request and the rules use, with the measurement units each quantity accepts. */
 export async function diagnosisVocabulary(actor: Actor): Promise<DiagnosisVocabularyDto> {
-  const titles = await knowledgeBaseTitles(actor.organisationId)
+  const titles = await knowledgeBaseTitles(actor.organisationId, await stampsFor(actor))
   const quantity = (q: (typeof STAGE_QUANTITIES)[number] | (typeof UNIT_WIDE_QUANTITIES)[number], perStage: boolean) => ({
     quantity: q, perStage, dimension: QUANTITY_DIMENSION[q], units: DIMENSION_UNITS[QUANTITY_DIMENSION[q]],
   })

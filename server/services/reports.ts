@@ -2,6 +2,7 @@
 // share it), queueing it to the site's report contacts, and delivering each e-mail as a background
 // job that pg-boss retries (after about 30 s, 1, 2, 4 and 8 min, then it stays failed).
 import type { Transaction } from 'sequelize'
+import type { CacheStamps } from '#server/db/repositories/cache-stamps'
 import type { ServedFile } from '#server/utils/file-response'
 import { findCase } from '#server/db/repositories/case-records'
 import { appendEvents } from '#server/db/repositories/case-writes'
@@ -18,8 +19,8 @@ import { knowledgeBaseTitles } from './diagnosis'
 import { cancelJob, defineJob, enqueueJob } from './jobs'
 import type { Actor } from './types'
 
-async function reportOf(c: CaseDto, organisationId: number): Promise<ServiceReport> {
-  const [org, titles] = await Promise.all([organisationSettings(organisationId), knowledgeBaseTitles(organisationId)])
+async function reportOf(c: CaseDto, organisationId: number, stamps?: CacheStamps): Promise<ServiceReport> {
+  const [org, titles] = await Promise.all([organisationSettings(organisationId), knowledgeBaseTitles(organisationId, stamps)])
   return buildServiceReport(c, { organisation: org.name, timeZone: org.timeZone, atmosphericKpa: siteAtmosphere(c.unit.siteAltitudeM).kpa, titles })
 }
 
@@ -31,7 +32,7 @@ async function caseOf(organisationId: number, caseId: number): Promise<CaseDto> 
 
 /** `GET /api/cases/{id}/report`: the report model of a case of the actor's organisation. */
 export async function serviceReport(actor: Actor, input: { caseId: number }): Promise<ServiceReport> {
-  return reportOf(await caseOf(actor.organisationId, input.caseId), actor.organisationId)
+  return reportOf(await caseOf(actor.organisationId, input.caseId), actor.organisationId, actor.cacheStamps)
 }
 
 /** `GET /api/cases/{id}/report.pdf`: the same report as a PDF, with the file name downloads and e-mails use. */

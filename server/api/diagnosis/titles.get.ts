@@ -5,5 +5,5 @@ import type { KnowledgeBaseTitles } from '#shared/utils/vocabulary'
 // shared vocabulary has no entry for yet fall back to these.
 export default defineApiHandler(async (event) => {
   const actor = await requireUser(event, 'knowledge:read')
-  return (await knowledgeBaseTitles(actor.organisationId)) satisfies KnowledgeBaseTitles
+  return (await knowledgeBaseTitles(actor.organisationId, actor.cacheStamps)) satisfies KnowledgeBaseTitles
 })

@@ -16,17 +16,31 @@ export interface CacheStamps {
   equipmentGeneration: number
 }
 
-/** The organisation's cache stamps in one indexed read. */
-export async function readCacheStamps(organisationId: number): Promise<CacheStamps> {
-  const [row] = await Organisation.sequelize!.query<{ kb: number | null; learned: string | null; equipment: string | null }>(
-    `SELECT s.published_kb_version_id AS kb, s.learned_generation AS learned, s.equipment_generation AS equipment
-       FROM organisation_cache_stamps s WHERE s.organisation_id = $1`,
-    { bind: [organisationId], type: QueryTypes.SELECT },
-  )
+/** The stamp columns as queries select them (`kb`, `learned`, `equipment`); a missing row is all zero. */
+export interface CacheStampColumns {
+  kb: number | null
+  learned: string | number | null
+  equipment: string | number | null
+}
+
+/** SQL select list of the stamp columns of `organisation_cache_stamps s`, for a query that joins them. */
+export const CACHE_STAMP_COLUMNS = 's.published_kb_version_id AS kb, s.learned_generation AS learned, s.equipment_generation AS equipment'
+
+/** The stamps of an organisation from the columns a query selected. */
+export function cacheStampsFrom(organisationId: number, row: Partial<CacheStampColumns> | undefined): CacheStamps {
   return {
     organisationId,
     knowledgeBaseVersionId: row?.kb ?? null,
     learnedGeneration: Number(row?.learned ?? 0),
     equipmentGeneration: Number(row?.equipment ?? 0),
   }
+}
+
+/** The organisation's cache stamps in one indexed read. */
+export async function readCacheStamps(organisationId: number): Promise<CacheStamps> {
+  const [row] = await Organisation.sequelize!.query<CacheStampColumns>(
+    `SELECT ${CACHE_STAMP_COLUMNS} FROM organisation_cache_stamps s WHERE s.organisation_id = $1`,
+    { bind: [organisationId], type: QueryTypes.SELECT },
+  )
+  return cacheStampsFrom(organisationId, row)
 }
