@@ -1,7 +1,8 @@
 #!/usr/bin/env node
 // `npm test`: installs what is missing (npm packages, PostgreSQL, Chromium), starts a throwaway
 // PostgreSQL cluster on a free loopback port, migrates and seeds it, then runs every test:
-// typecheck, unit (vitest), build, API (vitest against the built server), browser (Playwright).
+// typecheck, unit and component (vitest), build, API (vitest against the built server, with a
+// second server on the same database for the cache checks), browser (Playwright).
 // Everything it started is stopped at the end, also on failure.
 import { spawn } from 'node:child_process'
 import { join } from 'node:path'
@@ -50,6 +51,7 @@ async function main() {
   const common = { DATABASE_URL: db.databaseUrl, CHROMIUM_PATH: chromium }
   await runStep('typecheck', bin('nuxt'), ['typecheck'])
   await runStep('unit tests', bin('vitest'), ['run', '--project', 'unit'], common)
+  await runStep('component tests', bin('vitest'), ['run', '--project', 'nuxt'], common)
   const built = await runStep('build', process.execPath, ['-e', 'import("./scripts/lib/project.mjs").then(m => m.buildIfStale())'])
   if (!built) return
 
@@ -59,7 +61,11 @@ async function main() {
   const outbox = server.outbox
 
   const served = { ...common, RIMECASE_TEST_BASE_URL: baseUrl, RIMECASE_OUTBOX_DIR: outbox }
-  await runStep('API tests', bin('vitest'), ['run', '--project', 'api'], served)
+  // A second server on the same database: the cache checks change data through one and read it
+  // through the other. It is stopped before the browser tests to leave them the machine.
+  const second = await startServer(db)
+  await runStep('API tests', bin('vitest'), ['run', '--project', 'api'], { ...served, RIMECASE_TEST_SECOND_BASE_URL: second.baseUrl })
+  await second.stop()
   await runStep('browser tests', bin('playwright'), ['test'], served)
   console.log(`\nnpm test wall time: ${((Date.now() - t0) / 1000).toFixed(0)} s`)
 }

@@ -1,9 +1,11 @@
 import type { ZodType } from 'zod'
+import { zodFieldErrors } from '#shared/utils/input-errors'
 
 /**
- * Busy flag, form message and per-field messages of one form. `submit` checks the value with the same
- * zod schema the route uses, and only sends it when it passes; the server's own field errors (a
- * duplicate serial, say) land in the same `fieldErrors` so they show beside the same fields.
+ * The submit cycle every form shares: busy flag, form message and per-field messages. `submit`
+ * checks the value with the same zod schema the route uses and sends it only when it passes; the
+ * server's own field errors (a duplicate serial, say) land in the same `fieldErrors`, so they show
+ * beside the same fields.
  */
 export function useValidatedForm() {
   const fieldErrors = ref<Record<string, string[]>>({})
@@ -14,7 +16,7 @@ export function useValidatedForm() {
     error.value = ''
     const parsed = schema.safeParse(value)
     if (!parsed.success) {
-      fieldErrors.value = fieldErrorsFromIssues(parsed.error.issues)
+      fieldErrors.value = zodFieldErrors(parsed.error)
       error.value = 'Some fields need another look; see the messages below them.'
       return false
     }

@@ -5,9 +5,9 @@
 import { StandingPressureBodySchema } from '#shared/schemas/properties'
 import type { StandingFromChargeDto, StandingFromPressureDto, StandingShiftDto } from '#shared/types/properties-dto'
 import { saturationAtPressure, saturationAtTemperature, standingCheck } from '#shared/utils/calculator'
-import { OutOfRangeError, UnitError, UnknownRefrigerantError, atmosphericPressureAtAltitude, toCelsius, toKpaAbs, type PressureUnit, type RefrigerantInfo, type TemperatureUnit } from '#shared/utils/properties'
-import { STANDARD_ATMOSPHERE_KPA } from '#shared/utils/properties/units'
-import { parseDecimal } from './figures'
+import { siteAtmosphere } from '#shared/utils/format'
+import { OutOfRangeError, UnitError, UnknownRefrigerantError, toCelsius, toKpaAbs, type PressureUnit, type RefrigerantInfo, type TemperatureUnit } from '#shared/utils/properties'
+import { parseDecimal } from './decimal'
 
 /** One saturation state: a pure fluid has one, a blend a bubble (liquid) and a dew (vapour) state. */
 export interface SaturationRow {
@@ -143,13 +143,12 @@ export function standingView(info: RefrigerantInfo, form: StandingForm, atmosphe
 
 /** Local atmospheric pressure for gauge readings: the ISO 2533 standard atmosphere at the site's altitude, else sea level. */
 export function localAtmosphere(site?: { altitudeM: number; name: string }): { kpa: number; source: string } {
-  if (site) {
-    try {
-      return { kpa: atmosphericPressureAtAltitude(site.altitudeM), source: `standard atmosphere at ${site.name}, ${site.altitudeM} m` }
-    } catch (error) {
-      asInvalid(error)
-      return { kpa: STANDARD_ATMOSPHERE_KPA, source: `sea level: ${site.name}'s altitude (${site.altitudeM} m) is outside the standard atmosphere` }
-    }
+  const atmosphere = siteAtmosphere(site?.altitudeM)
+  if (!site) return { kpa: atmosphere.kpa, source: atmosphere.source }
+  return {
+    kpa: atmosphere.kpa,
+    source: atmosphere.fromAltitude
+      ? `standard atmosphere at ${site.name}, ${site.altitudeM} m`
+      : `sea level: ${site.name}'s altitude (${site.altitudeM} m) is outside the standard atmosphere`,
   }
-  return { kpa: STANDARD_ATMOSPHERE_KPA, source: 'standard atmosphere at sea level' }
 }

@@ -10,7 +10,7 @@ import { chargingCheck, substitutionPlan } from '#shared/utils/calculator'
 import type { SubstitutionBasis } from '#shared/utils/charging'
 import { findRefrigerant, toKpaAbs, type Designation, type PressureUnit } from '#shared/utils/properties'
 import { propertyProblem } from './calculatorViews'
-import { parseDecimal } from './figures'
+import { parseDecimal } from './decimal'
 
 /** A card's answer: field errors beside the inputs, the result once it computes, or the models' refusal in their words. */
 export interface FormView<F extends string, R> {

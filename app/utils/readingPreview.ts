@@ -1,8 +1,8 @@
 // What a reading means while it is typed: converts it and, for stage pressures and temperatures,
 // computes the saturation temperature, superheat or subcooling with the shared property module.
 import type { Quantity, Reading, Stage } from '#shared/types/diagnosis'
+import { formatPressure, formatQuantity } from '#shared/utils/format'
 import { ABOVE_CRITICAL_AT_AMBIENT, findRefrigerant, isDesignation, saturationTemperature, superheatK, subcoolingK, toCelsius, toKpaAbs } from '#shared/utils/properties'
-import { formatFigure } from './figures'
 
 export interface PreviewContext {
   refrigerant?: string
@@ -40,19 +40,19 @@ export function previewReading(quantity: Quantity, value: number, unit: string, 
   try {
     if (quantity.endsWith('Pressure')) {
       const kpa = toKpaAbs(value, unit, ctx.atmosphericKpa)
-      if (!ctx.refrigerant || !isDesignation(ctx.refrigerant)) return `${formatFigure(kpa, 0)} kPa abs`
-      if (quantity === 'standingPressure' && aboveCriticalAtAmbient(ctx.refrigerant, ctx.ambientC)) return `${formatFigure(kpa, 0)} kPa abs: ${ABOVE_CRITICAL_AT_AMBIENT}`
+      if (!ctx.refrigerant || !isDesignation(ctx.refrigerant)) return formatPressure(kpa, { decimals: 0 })
+      if (quantity === 'standingPressure' && aboveCriticalAtAmbient(ctx.refrigerant, ctx.ambientC)) return `${formatPressure(kpa, { decimals: 0 })}: ${ABOVE_CRITICAL_AT_AMBIENT}`
       const sat = saturationTemperature(ctx.refrigerant, kpa)
       const glide = Math.abs(sat.dewC - sat.bubbleC) > 0.05
       const temp = quantity === 'dischargePressure' && glide ? sat.bubbleC : sat.dewC
-      return `${formatFigure(kpa, 0)} kPa abs → ${formatFigure(temp, 1)} °C sat.${glide ? (quantity === 'dischargePressure' ? ' (bubble)' : ' (dew)') : ''}`
+      return `${formatPressure(kpa, { decimals: 0 })} → ${formatQuantity(temp, 'C')} sat.${glide ? (quantity === 'dischargePressure' ? ' (bubble)' : ' (dew)') : ''}`
     }
     if (unit === 'C' || unit === 'F' || unit === 'K') {
       const c = toCelsius(value, unit)
       const d = ctx.refrigerant
-      if (d && isDesignation(d) && quantity === 'suctionTemperature' && ctx.suctionKpa) return `${formatFigure(c, 1)} °C → superheat ${formatFigure(superheatK(d, ctx.suctionKpa, c), 1)} K`
-      if (d && isDesignation(d) && quantity === 'liquidLineTemperature' && ctx.dischargeKpa) return `${formatFigure(c, 1)} °C → subcooling ${formatFigure(subcoolingK(d, ctx.dischargeKpa, c), 1)} K`
-      return unit === 'C' ? '' : `${formatFigure(c, 1)} °C`
+      if (d && isDesignation(d) && quantity === 'suctionTemperature' && ctx.suctionKpa) return `${formatQuantity(c, 'C')} → superheat ${formatQuantity(superheatK(d, ctx.suctionKpa, c), 'K', 1)}`
+      if (d && isDesignation(d) && quantity === 'liquidLineTemperature' && ctx.dischargeKpa) return `${formatQuantity(c, 'C')} → subcooling ${formatQuantity(subcoolingK(d, ctx.dischargeKpa, c), 'K', 1)}`
+      return unit === 'C' ? '' : formatQuantity(c, 'C')
     }
   } catch (error) {
     return error instanceof Error ? error.message : 'Outside the refrigerant range'

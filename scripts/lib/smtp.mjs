@@ -14,6 +14,12 @@ export async function startSmtpFake({ port = 0, dir = join(ROOT, '.data', 'outbo
     disabledCommands: ['STARTTLS'],
     logger: false,
     size: 25 * 1024 * 1024,
+    // Addresses under the reserved .invalid top-level domain (RFC 2606) can never exist: refuse
+    // them as a real relay would, so failed deliveries and their retries can be tried out.
+    onRcptTo(address, session, callback) {
+      if (/\.invalid$/i.test(address.address)) return callback(Object.assign(new Error('No such mailbox'), { responseCode: 550 }))
+      callback()
+    },
     onData(stream, session, callback) {
       const chunks = []
       stream.on('data', (c) => chunks.push(c))

@@ -1,5 +1,12 @@
-// Small typed errors that domain code throws; server/utils/errors.ts maps them to HTTP statuses.
+// Small typed errors that domain code and services throw. server/utils/errors.ts maps each type to
+// its HTTP status in one table; nothing else in the server decides a status.
 
+import type { FieldErrors } from '#shared/utils/input-errors'
+
+/** No signed-in, active user: sign in first. */
+export class UnauthenticatedError extends Error {
+  override name = 'UnauthenticatedError'
+}
 /** The record does not exist, or belongs to another organisation (both are 404). */
 export class NotFoundError extends Error {
   override name = 'NotFoundError'
@@ -16,9 +23,12 @@ export class ConflictError extends Error {
 export class InvalidStateError extends Error {
   override name = 'InvalidStateError'
 }
-/** The input is malformed in a way no schema catches (e.g. an empty file). */
+/** The input is malformed, or names something the record does not have (a stage the unit lacks). */
 export class BadInputError extends Error {
   override name = 'BadInputError'
+  constructor(message: string, readonly fieldErrors?: FieldErrors) {
+    super(message)
+  }
 }
 /** The input is larger than allowed. */
 export class TooLargeError extends Error {
@@ -27,6 +37,10 @@ export class TooLargeError extends Error {
 /** The input's content is of a type that is not accepted. */
 export class UnsupportedTypeError extends Error {
   override name = 'UnsupportedTypeError'
+}
+/** Something the request needs is not there yet or not reachable (no published knowledge base, file store down). */
+export class UnavailableError extends Error {
+  override name = 'UnavailableError'
 }
 
 /** A clash tied to one input field (a serial or name already in use), so a form can show it there. */

@@ -1,26 +1,27 @@
 import type { H3Event } from 'h3'
 import type { User } from '#auth-utils'
+import type { CacheStamps } from '#server/db/repositories/cache-stamps'
 import { findActiveUser } from '#server/db/repositories/users'
+import { ForbiddenError, UnauthenticatedError } from '#server/domain/errors'
 import { can, type Permission } from '#shared/utils/permissions'
 
 /**
  * Identifies the signed-in, still-active user (401 otherwise) and checks `permission` (403);
  * given a list, any one of them is enough. Every protected route calls this first; the session
- * alone is not trusted, so a deactivated user is refused on the next request.
+ * alone is not trusted, so a deactivated user is refused on the next request. The user comes with
+ * the cache stamps of their organisation as of this request, for the services' caches.
  */
-export async function requireUser(event: H3Event, permission?: Permission | readonly Permission[]): Promise<User> {
+export async function requireUser(event: H3Event, permission?: Permission | readonly Permission[]): Promise<User & { cacheStamps: CacheStamps }> {
   const session = await getUserSession(event)
-  if (!session.user) throw createError({ status: 401, statusText: 'Unauthorized', message: 'Sign in first' })
+  if (!session.user) throw new UnauthenticatedError('Sign in first')
   const current = await findActiveUser(session.user.id)
   if (!current) {
     await clearUserSession(event)
-    throw createError({ status: 401, statusText: 'Unauthorized', message: 'Your account is no longer active. Sign in again.' })
+    throw new UnauthenticatedError('Your account is no longer active. Sign in again.')
   }
   const user: User = { id: current.id, email: current.email, name: current.name, role: current.role, organisationId: current.organisationId }
   const anyOf = permission === undefined ? [] : typeof permission === 'string' ? [permission] : permission
-  if (anyOf.length && !anyOf.some((p) => can(user.role, p))) {
-    throw createError({ status: 403, statusText: 'Forbidden', message: 'Your role may not do this' })
-  }
+  if (anyOf.length && !anyOf.some((p) => can(user.role, p))) throw new ForbiddenError('Your role may not do this')
   event.context.user = user
-  return user
+  return { ...user, cacheStamps: current.cacheStamps }
 }

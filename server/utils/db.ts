@@ -3,12 +3,15 @@ import { createSequelize } from '#server/db/connection'
 
 let instance: Sequelize | undefined
 
-/** The server's single Sequelize instance, opened on first use from NUXT_DATABASE_URL. */
+/** The database URL from runtime config (NUXT_DATABASE_URL) or DATABASE_URL. */
+export function databaseUrl(): string {
+  const url = useRuntimeConfig().databaseUrl || process.env.DATABASE_URL
+  if (!url) throw new Error('No database configured: set NUXT_DATABASE_URL')
+  return url
+}
+
+/** The server's single Sequelize instance, opened on first use. */
 export function useDb(): Sequelize {
-  if (!instance) {
-    const url = useRuntimeConfig().databaseUrl || process.env.DATABASE_URL
-    if (!url) throw new Error('No database configured: set NUXT_DATABASE_URL')
-    instance = createSequelize(url)
-  }
+  instance ??= createSequelize(databaseUrl())
   return instance
 }

@@ -1,21 +1,34 @@
+// The one error mapper: every HTTP status the API answers with is decided here, from the type of
+// the error a service, a domain function or an input check threw. Handlers are wrapped by
+// defineApiHandler (server/utils/api-handler.ts), which passes every error through toHttpError.
+import { RankInputError } from '#server/domain/diagnosis/rank'
+import {
+  BadInputError, ConflictError, FieldConflictError, FieldNotFoundError, ForbiddenError, InvalidStateError, NotFoundError, TooLargeError,
+  UnauthenticatedError, UnavailableError, UnsupportedTypeError,
+} from '#server/domain/errors'
 import { OutOfRangeError, UnitError, UnknownRefrigerantError } from '#shared/utils/properties'
-import { BadInputError, ConflictError, FieldConflictError, FieldNotFoundError, ForbiddenError, InvalidStateError, NotFoundError, TooLargeError, UnsupportedTypeError } from '#server/domain/errors'
 
-const STATUS: [new (...args: never[]) => Error, number, string][] = [
-  [NotFoundError, 404, 'Not Found'],
+type ErrorType = new (...args: never[]) => Error
+
+// Most specific first: the first matching type decides.
+const STATUS: [ErrorType, number, string][] = [
+  [UnauthenticatedError, 401, 'Unauthorized'],
   [ForbiddenError, 403, 'Forbidden'],
+  [NotFoundError, 404, 'Not Found'],
   [ConflictError, 409, 'Conflict'],
   [InvalidStateError, 422, 'Unprocessable Entity'],
-  // The property module (shared with the browser) has its own error classes; they map here too.
-  [UnknownRefrigerantError, 404, 'Not Found'],
-  [OutOfRangeError, 422, 'Unprocessable Entity'],
-  [UnitError, 400, 'Bad Request'],
   [BadInputError, 400, 'Bad Request'],
   [TooLargeError, 413, 'Content Too Large'],
   [UnsupportedTypeError, 415, 'Unsupported Media Type'],
+  [UnavailableError, 503, 'Service Unavailable'],
+  // The property module (shared with the browser) and the ranking have their own error classes.
+  [UnknownRefrigerantError, 404, 'Not Found'],
+  [OutOfRangeError, 422, 'Unprocessable Entity'],
+  [UnitError, 400, 'Bad Request'],
+  [RankInputError, 400, 'Bad Request'],
 ]
 
-/** Extra data a client can act on: the valid range of an out-of-range input, the allowed units. */
+/** Extra data a client can act on: field messages, the valid range of an out-of-range input, the allowed units. */
 function dataOf(error: Error): Record<string, unknown> | undefined {
   if (error instanceof OutOfRangeError && (error.range || error.field)) {
     // Infinity is not JSON; an open end of a range is simply left out.
@@ -23,31 +36,23 @@ function dataOf(error: Error): Record<string, unknown> | undefined {
     return { ...range, ...(error.field ? { fieldErrors: { [error.field]: [error.message] } } : {}) }
   }
   if (error instanceof UnitError) return { allowed: error.allowed, fieldErrors: { unit: [error.message] } }
+  if (error instanceof RankInputError) return { fieldErrors: { testResults: error.issues } }
+  if (error instanceof BadInputError && error.fieldErrors) return { fieldErrors: error.fieldErrors }
   // Field-tied errors carry the same `fieldErrors` shape as a 400, so forms place them beside the field.
   if (error instanceof FieldConflictError || error instanceof FieldNotFoundError) return { fieldErrors: { [error.field]: [error.message] } }
   return undefined
 }
 
-/** Maps a domain error to its HTTP error; anything else is rethrown unchanged. */
-export function toHttpError(error: unknown): never {
-  for (const [type, status, statusText] of STATUS) {
-    if (!(error instanceof type)) continue
-    const data = dataOf(error)
-    throw createError({ status, statusText, message: error.message, ...(data ? { data } : {}) })
-  }
-  throw error
+/** The HTTP status a domain error maps to, or undefined for anything else. */
+export function statusOf(error: unknown): number | undefined {
+  return STATUS.find(([type]) => error instanceof type)?.[1]
 }
 
-/** Runs `fn`, converting domain errors to HTTP errors in this one place. */
-export async function withDomainErrors<T>(fn: () => Promise<T> | T): Promise<T> {
-  try {
-    return await fn()
-  } catch (error) {
-    return toHttpError(error)
-  }
-}
-
-/** A 404 with the API's message shape. */
-export function notFound(what: string) {
-  return createError({ status: 404, statusText: 'Not Found', message: `${what} not found` })
+/** Maps a domain error to its HTTP error; anything else (an h3 error, a bug) is returned unchanged. */
+export function toHttpError(error: unknown): unknown {
+  const entry = STATUS.find(([type]) => error instanceof type)
+  if (!entry) return error
+  const [, status, statusText] = entry
+  const data = dataOf(error as Error)
+  return createError({ status, statusText, message: (error as Error).message, ...(data ? { data } : {}) })
 }

@@ -45,7 +45,7 @@ export async function renderReportPdf(report: ServiceReport): Promise<Buffer> {
   doc.fillColor('#0f172a').font('bold').fontSize(15).text(report.title)
   doc.font('text').fontSize(10).fillColor('#334155')
     .text(`${report.reference} · ${report.organisation} · technician ${report.technician}`)
-    .text(`Opened ${report.openedAt.slice(0, 16).replace('T', ' ')} UTC${report.closedAt ? ` · closed ${report.closedAt.slice(0, 16).replace('T', ' ')} UTC` : ' · still open'}`)
+    .text(report.when[0]!.toUpperCase() + report.when.slice(1))
   for (const section of report.sections) {
     doc.moveDown(0.8).font('bold').fontSize(12).fillColor('#0f172a').text(section.title)
     doc.moveTo(doc.x, doc.y + 2).lineTo(doc.page.width - 48, doc.y + 2).strokeColor('#cbd5e1').stroke().moveDown(0.3)

@@ -1,21 +1,11 @@
 import type { H3Event } from 'h3'
 import type { ZodError, ZodType } from 'zod'
+import { BadInputError } from '#server/domain/errors'
+import { zodFieldErrors, zodSummary } from '#shared/utils/input-errors'
 
-/** Turns a zod error into the API's 400: `{ statusCode, message, data: { fieldErrors } }`. */
-export function validationError(error: ZodError) {
-  const fieldErrors: Record<string, string[]> = {}
-  for (const issue of error.issues) {
-    const key = issue.path.map(String).join('.') || '_'
-    ;(fieldErrors[key] ??= []).push(issue.message)
-  }
-  const first = error.issues[0]
-  const where = first?.path.length ? `${first.path.map(String).join('.')}: ` : ''
-  return createError({
-    status: 400,
-    statusText: 'Bad Request',
-    message: `Invalid input. ${where}${first?.message ?? 'check the fields'}`,
-    data: { fieldErrors },
-  })
+/** The API's 400 for input that fails its schema: field messages by path, and a summary naming the field in words. */
+export function invalidInput(error: ZodError): BadInputError {
+  return new BadInputError(zodSummary(error), zodFieldErrors(error))
 }
 
 async function check<T>(read: Promise<{ success: true; data: T } | { success: false; error: ZodError }>): Promise<T> {
@@ -26,11 +16,12 @@ async function check<T>(read: Promise<{ success: true; data: T } | { success: fa
     // e.g. a body that is not JSON: keep the 400 and give it the same shape as field errors.
     const h3 = error as { statusCode?: number; message?: string }
     if (h3.statusCode === 400) {
-      throw createError({ status: 400, statusText: 'Bad Request', message: h3.message || 'Malformed request', data: { fieldErrors: { _: [h3.message || 'Malformed request'] } } })
+      const message = h3.message || 'The request could not be read'
+      throw new BadInputError(message, { _: [message] })
     }
     throw error
   }
-  if (!result.success) throw validationError(result.error)
+  if (!result.success) throw invalidInput(result.error)
   return result.data
 }
 
@@ -52,6 +43,6 @@ export function readParamsAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> 
 /** Validates a value the server assembled (e.g. a patch merged onto a saved record) with the API's 400. */
 export function parseAs<T>(schema: ZodType<T>, value: unknown): T {
   const result = schema.safeParse(value)
-  if (!result.success) throw validationError(result.error)
+  if (!result.success) throw invalidInput(result.error)
   return result.data
 }

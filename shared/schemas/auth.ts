@@ -26,3 +26,4 @@ export const UserChangeSchema = z
   })
   .strict()
   .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change' })
+export type UserChangeInput = z.infer<typeof UserChangeSchema>

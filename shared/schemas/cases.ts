@@ -13,22 +13,27 @@ export const NewCaseSchema = z
     symptoms: z.array(symptomSchema).max(20).default([]),
   })
   .strict()
+export type NewCaseInput = z.infer<typeof NewCaseSchema>
 
 /** `POST /api/cases/{id}/readings`. `version` (optional) guards against overwriting newer changes. */
 export const AddReadingsSchema = z
   .object({ readings: z.array(readingSchema).min(1, 'Enter at least one reading').max(100), version })
   .strict()
+export type AddReadingsInput = z.infer<typeof AddReadingsSchema>
 
 /** `POST /api/cases/{id}/test-results`. */
 export const AddTestResultSchema = z
   .object({ test: testSlugSchema, stage: stageSchema.optional(), outcome: z.string().trim().min(1).max(60), note: text(2000).optional(), version })
   .strict()
+export type AddTestResultInput = z.infer<typeof AddTestResultSchema>
 
 /** `PUT /api/cases/{id}/symptoms`: the full set of symptoms now ticked. */
 export const SetSymptomsSchema = z.object({ symptoms: z.array(symptomSchema).max(20), version }).strict()
+export type SetSymptomsInput = z.infer<typeof SetSymptomsSchema>
 
 /** `POST /api/cases/{id}/notes` and `/addendum`. */
 export const NoteSchema = z.object({ text: text(4000).min(1, 'Write the note first'), version }).strict()
+export type NoteInput = z.infer<typeof NoteSchema>
 
 export const RefrigerantTransactionSchema = z
   .object({
@@ -52,6 +57,7 @@ export const CloseCaseSchema = z
     version,
   })
   .strict()
+export type CloseCaseInput = z.infer<typeof CloseCaseSchema>
 
 const optionalId = z.coerce.number().int().positive().optional()
 /** `GET /api/cases` filters, sorting and paging. */
@@ -71,3 +77,4 @@ export const CaseListQuerySchema = z
     pageSize: z.coerce.number().int().min(1).max(100).default(20),
   })
   .strict()
+export type CaseListQuery = z.infer<typeof CaseListQuerySchema>

@@ -203,8 +203,8 @@ export const StandingPressureBodySchema = z
     return { ...common, mode: 'shift', referencePressureKpa: b.referencePressureKpa, referenceAmbientC: b.referenceAmbientC, ...(volumeL !== undefined ? { volumeL } : {}) }
   })
 
-/** `GET /api/units-conversion?value=15&from=psig&to=kPa` (gauge units use `atmosphericKpa` or `altitudeM`, else 101.325 kPa). */
-export const UnitsConversionQuerySchema = z
+/** `GET /api/conversions/measurement?value=15&from=psig&to=kPa` (also at its first address /api/units-conversion; gauge units use `atmosphericKpa` or `altitudeM`, else 101.325 kPa). */
+export const MeasurementConversionQuerySchema = z
   .object({
     value: queryNumber('value'),
     from: z.enum(UNITS, { error: `from must be one of: ${UNITS.join(', ')}` }),
@@ -216,4 +216,4 @@ export const UnitsConversionQuerySchema = z
     if (isPressureUnit(q.from) !== isPressureUnit(q.to)) ctx.addIssue({ code: 'custom', message: `Cannot convert ${q.from} to ${q.to}: one is a pressure, the other a temperature`, path: ['to'] })
     if (q.atmosphericKpa !== undefined && q.altitudeM !== undefined) ctx.addIssue({ code: 'custom', message: 'Give atmosphericKpa or altitudeM, not both', path: ['altitudeM'] })
   })
-export type UnitsConversionQuery = z.infer<typeof UnitsConversionQuerySchema>
+export type MeasurementConversionQuery = z.infer<typeof MeasurementConversionQuerySchema>

@@ -13,3 +13,10 @@ export interface AdminUserDto extends UserDto {
   active: boolean
   createdAt: string
 }
+
+/** A person of the organisation for pickers and filters: no e-mail, no account state. */
+export interface PersonDto {
+  id: number
+  name: string
+  role: Role
+}

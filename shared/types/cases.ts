@@ -1,5 +1,6 @@
 import type { Cause, RankResponse, Reading, Stage, Symptom, TestResult } from './diagnosis'
 import type { UnitDto } from './equipment-dto'
+import type { UploadDto } from './uploads'
 
 export const CASE_STATUSES = ['open', 'closed'] as const
 export type CaseStatus = (typeof CASE_STATUSES)[number]
@@ -50,16 +51,6 @@ export interface CaseClosure {
   closedBy: number | null
 }
 
-export interface UploadDto {
-  id: number
-  mime: string
-  bytes: number
-  originalName: string
-  purpose: string
-  url: string
-  thumbUrl: string | null
-  createdAt: string
-}
 
 export interface EmailDto {
   id: number
@@ -69,6 +60,8 @@ export interface EmailDto {
   attempts: number
   lastError: string | null
   sentAt: string | null
+  /** The background job delivering it (`GET /api/jobs/{id}`); null for e-mails queued before jobs existed. */
+  jobId: string | null
 }
 
 /** A case as `GET /api/cases/{id}` returns it (contract fields first). */
@@ -105,6 +98,6 @@ export interface CaseListItem {
   technician: string | null
   openedAt: string
   closedAt: string | null
-  confirmedCauses: { cause: string; stage?: string }[]
-  topCause: { cause: string; stage?: string; probability: number } | null
+  confirmedCauses: { cause: Cause; stage?: Stage }[]
+  topCause: { cause: Cause; stage?: Stage; probability: number } | null
 }

@@ -1,6 +1,5 @@
 import type { Stage as StageName, UnitKind } from './diagnosis'
 import type { EquipmentClass } from './equipment'
-import type { CaseListItem, RefrigerantTransactionDto, UploadDto } from './cases'
 
 export interface UnitStageDto {
   stage: StageName
@@ -79,16 +78,4 @@ export interface RefrigerantSafetyDto {
   toxic: boolean
   highPressure: boolean
   cautions: string[]
-}
-
-/** `GET /api/units/{id}/overview`: the unit with its history. */
-export interface UnitOverviewDto {
-  unit: UnitDto
-  refrigerants: RefrigerantSafetyDto[]
-  openCases: CaseListItem[]
-  pastCases: CaseListItem[]
-  pastCaseTotal: number
-  transactions: RefrigerantTransactionDto[]
-  uploads: UploadDto[]
-  nameplate: UploadDto | null
 }

@@ -1,19 +1,8 @@
 // Equipment words shared by forms, the API and the diagnosis priors. Unit kinds and stage names
-// live with the diagnosis vocabulary (shared/types/diagnosis.ts).
+// live with the diagnosis words (shared/types/diagnosis.ts); what people read for each is in the
+// vocabulary (shared/utils/vocabulary/equipment.ts).
 export const EQUIPMENT_CLASSES = ['ult-freezer', 'cold-trap', 'test-chamber', 'freezer', 'cold-room', 'process-chiller'] as const
 export type EquipmentClass = (typeof EQUIPMENT_CLASSES)[number]
-
-export const EQUIPMENT_CLASS_LABELS: Record<EquipmentClass, string> = {
-  'ult-freezer': 'Ultra-low freezer',
-  'cold-trap': 'Cold trap',
-  'test-chamber': 'Environmental test chamber',
-  freezer: 'Freezer',
-  'cold-room': 'Cold room',
-  'process-chiller': 'Process chiller',
-}
-
-/** How each unit kind is named on screen; the words themselves are in shared/types/diagnosis.ts. */
-export const UNIT_KIND_LABELS = { cascade: 'Cascade', 'single-stage': 'Single stage' } as const
 
 /** Columns the equipment register can sort by (`GET /api/equipment/units?sort=`). */
 export const UNIT_SORTS = ['name', 'customer', 'kind', 'serial'] as const

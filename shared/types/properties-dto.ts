@@ -85,7 +85,7 @@ export interface StandingShiftDto extends StandingBase {
 
 export type StandingDto = StandingFromChargeDto | StandingFromPressureDto | StandingShiftDto
 
-/** `GET /api/units-conversion`: one reading in another unit; gauge pressures name the atmosphere used. */
-export type UnitsConversionDto =
+/** `GET /api/conversions/measurement`: one reading in another measurement unit; gauge pressures name the atmosphere used. */
+export type MeasurementConversionDto =
   | { kind: 'pressure'; value: number; from: AnyPressureUnit; to: AnyPressureUnit; result: number; atmosphericKpa: number }
   | { kind: 'temperature'; value: number; from: TemperatureUnit; to: TemperatureUnit; result: number }

@@ -1,5 +1,6 @@
 // Roles and what each may do. The server's authorization helpers (server/utils/auth.ts) and the
-// app's navigation both read this table, so a permission is decided in exactly one place.
+// app's navigation both read this table, so a permission is decided in exactly one place. What a
+// role is called on screen is in the vocabulary (shared/utils/vocabulary/roles.ts).
 
 export const ROLES = ['technician', 'engineer', 'trainer', 'admin'] as const
 export type Role = (typeof ROLES)[number]
@@ -22,12 +23,4 @@ export type Permission = keyof typeof PERMISSIONS
 /** True when `role` holds `permission`. */
 export function can(role: Role | undefined | null, permission: Permission): boolean {
   return !!role && (PERMISSIONS[permission] as readonly Role[]).includes(role)
-}
-
-/** Human label of a role, as shown in the app. */
-export const ROLE_LABELS: Record<Role, string> = {
-  technician: 'Technician',
-  engineer: 'Senior engineer',
-  trainer: 'Trainer',
-  admin: 'Administrator',
 }

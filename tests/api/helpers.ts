@@ -1,5 +1,7 @@
 // HTTP helpers for API tests: they drive the built server started by scripts/test.mjs.
 export const BASE_URL = process.env.RIMECASE_TEST_BASE_URL ?? 'http://127.0.0.1:3000'
+/** A second server on the same database (scripts/test.mjs starts it), for checks across processes. */
+export const SECOND_BASE_URL = process.env.RIMECASE_TEST_SECOND_BASE_URL
 export const DEMO_PASSWORD = 'rimecase-demo'
 
 export interface ApiResponse<T = unknown> {
@@ -12,6 +14,8 @@ export interface ApiResponse<T = unknown> {
 export class ApiClient {
   cookie = ''
 
+  constructor(readonly baseUrl = BASE_URL) {}
+
   async request<T = any>(method: string, path: string, body?: unknown, init: RequestInit = {}): Promise<ApiResponse<T>> {
     const headers: Record<string, string> = { accept: 'application/json', ...(init.headers as Record<string, string>) }
     if (this.cookie) headers.cookie = this.cookie
@@ -21,7 +25,7 @@ export class ApiClient {
       headers['content-type'] = 'application/json'
       payload = JSON.stringify(body)
     }
-    const res = await fetch(`${BASE_URL}${path}`, { ...init, method, headers, body: payload, redirect: 'manual' })
+    const res = await fetch(`${this.baseUrl}${path}`, { ...init, method, headers, body: payload, redirect: 'manual' })
     const setCookie = res.headers.getSetCookie().find((c) => c.startsWith('nuxt-session='))
     if (setCookie) this.cookie = setCookie.split(';')[0]!
     const type = res.headers.get('content-type') ?? ''
@@ -31,7 +35,7 @@ export class ApiClient {
 
   /** The raw response, for files: the caller reads the bytes and headers it needs. */
   raw(path: string): Promise<Response> {
-    return fetch(`${BASE_URL}${path}`, { headers: this.cookie ? { cookie: this.cookie } : {}, redirect: 'manual' })
+    return fetch(`${this.baseUrl}${path}`, { headers: this.cookie ? { cookie: this.cookie } : {}, redirect: 'manual' })
   }
 
   get<T = any>(path: string) {
@@ -43,11 +47,14 @@ export class ApiClient {
   patch<T = any>(path: string, body?: unknown) {
     return this.request<T>('PATCH', path, body ?? {})
   }
+  put<T = any>(path: string, body?: unknown) {
+    return this.request<T>('PUT', path, body ?? {})
+  }
 }
 
-/** A client signed in as `email` (demo password unless given). */
-export async function signedIn(email: string, password = DEMO_PASSWORD): Promise<ApiClient> {
-  const client = new ApiClient()
+/** A client signed in as `email` (demo password unless given), on the main server unless another is named. */
+export async function signedIn(email: string, password = DEMO_PASSWORD, baseUrl = BASE_URL): Promise<ApiClient> {
+  const client = new ApiClient(baseUrl)
   const res = await client.post('/api/auth/login', { email, password })
   if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`)
   return client

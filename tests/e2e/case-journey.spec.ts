@@ -2,7 +2,7 @@ import { readFileSync, readdirSync } from 'node:fs'
 import { join } from 'node:path'
 import AxeBuilder from '@axe-core/playwright'
 import { expect, test, type Page } from '@playwright/test'
-import { PHONE, showNavigation, signIn } from './helpers'
+import { PHONE, gotoReady, showNavigation, signIn, waitForHydration } from './helpers'
 
 async function addReading(page: Page, where: string, quantity: string, value: string, unit?: string) {
   const form = page.getByRole('form', { name: 'Add a reading' })
@@ -95,7 +95,7 @@ test('a reading typed but not sent survives a reload, and one entered offline is
   await signIn(page, 'tech@rimecase.demo')
   const opened = await page.request.post('/api/cases', { data: { unitId: (await (await page.request.get('/api/units')).json())[0].id, complaint: 'Offline drill: basement plant room' } })
   const { id } = await opened.json()
-  await page.goto(`/cases/${id}`)
+  await gotoReady(page, `/cases/${id}`)
   const bar = page.getByRole('navigation', { name: 'Case actions' })
   await bar.getByRole('button', { name: 'Add reading' }).click()
   const form = page.getByRole('form', { name: 'Add a reading' })
@@ -104,6 +104,7 @@ test('a reading typed but not sent survives a reload, and one entered offline is
   await form.getByLabel('Value').fill('-37.5')
 
   await page.reload()
+  await waitForHydration(page)
   await bar.getByRole('button', { name: 'Add reading' }).click()
   await expect(form.getByLabel('Value')).toHaveValue('-37.5')
 
@@ -120,7 +121,7 @@ test('an edit based on an old copy of the case is explained, not lost', async ({
   await signIn(page, 'tech@rimecase.demo')
   const units = await (await page.request.get('/api/units')).json()
   const { id } = await (await page.request.post('/api/cases', { data: { unitId: units[0].id, complaint: 'Two technicians on one case' } })).json()
-  await page.goto(`/cases/${id}`)
+  await gotoReady(page, `/cases/${id}`)
   await expect(page.getByRole('form', { name: 'Add a reading' })).toBeVisible()
   // Someone else adds a reading with the current version, so this page's copy is now stale.
   const current = await (await page.request.get(`/api/cases/${id}`)).json()

@@ -1,6 +1,6 @@
 import AxeBuilder from '@axe-core/playwright'
 import { expect, test, type Page } from '@playwright/test'
-import { DESKTOP, PHONE, showNavigation, signIn } from './helpers'
+import { DESKTOP, PHONE, gotoReady, showNavigation, signIn } from './helpers'
 
 async function expectNoSeriousA11yIssues(page: Page) {
   const results = await new AxeBuilder({ page }).analyze()
@@ -114,7 +114,7 @@ for (const [size, viewport] of [['desktop', DESKTOP], ['phone', PHONE]] as const
 
 test('a duplicate serial is refused beside the serial field, and a trainer sees no editing controls', async ({ page }) => {
   await signIn(page, 'tech@rimecase.demo')
-  await page.goto('/units/new')
+  await gotoReady(page, '/units/new')
   await page.getByLabel('Name', { exact: true }).fill('Second F-204')
   await page.getByLabel('Site', { exact: true }).selectOption({ label: 'Lindqvarn Biobank, Cold Store Wing' })
   await page.getByLabel('Model').fill('Polarstack 780')

@@ -4,12 +4,24 @@ export const DEMO_PASSWORD = 'rimecase-demo'
 export const PHONE = { width: 390, height: 844 }
 export const DESKTOP = { width: 1280, height: 900 }
 
+/**
+ * Opens a page and waits until the app has hydrated it (the app sets html[data-hydrated]). Typing
+ * into server-rendered HTML before that would be undone by hydration, so every full page load that
+ * is followed by typing goes through here.
+ */
+export async function gotoReady(page: Page, path: string) {
+  await page.goto(path)
+  await waitForHydration(page)
+}
+
+/** Waits for the mark the app sets once the current page has hydrated. */
+export async function waitForHydration(page: Page) {
+  await page.locator('html[data-hydrated]').waitFor({ state: 'attached' })
+}
+
 /** Signs in through the sign-in page and waits for the home page. */
 export async function signIn(page: Page, email: string) {
-  await page.goto('/login')
-  // On a loaded machine the form can be typed into before the app has hydrated, which then clears it:
-  // wait until the page's scripts have loaded.
-  await page.waitForLoadState('networkidle')
+  await gotoReady(page, '/login')
   await page.getByLabel('E-mail').fill(email)
   await page.getByLabel('Password').fill(DEMO_PASSWORD)
   await page.getByRole('button', { name: 'Sign in' }).click()

@@ -2,8 +2,8 @@ import { ChargingBodySchema } from '#shared/schemas/charging'
 import type { ChargingDto } from '#shared/types/charging-dto'
 import { chargingCheck } from '#shared/utils/calculator'
 
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   await requireUser(event, 'calculator:use')
   const input = await readBodyAs(event, ChargingBodySchema)
-  return withDomainErrors(() => chargingCheck(input) satisfies ChargingDto)
+  return chargingCheck(input) satisfies ChargingDto
 })

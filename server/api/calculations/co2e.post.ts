@@ -2,8 +2,8 @@ import { Co2eBodySchema } from '#shared/schemas/compliance'
 import type { Co2eDto } from '#shared/types/compliance'
 import { co2eOfCharge } from '#server/domain/compliance/f-gas'
 
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   await requireUser(event, 'calculator:use')
   const input = await readBodyAs(event, Co2eBodySchema)
-  return withDomainErrors(() => co2eOfCharge(input) satisfies Co2eDto)
+  return co2eOfCharge(input) satisfies Co2eDto
 })

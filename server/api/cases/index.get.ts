@@ -1,9 +1,10 @@
-import { listCases } from '#server/db/repositories/cases'
+import { listCases } from '#server/services/cases'
 import { CaseListQuerySchema } from '#shared/schemas/cases'
+import type { CaseListItem } from '#shared/types/cases'
+import type { Page } from '#shared/types/equipment-dto'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'cases:read')
-  const filters = await readQueryAs(event, CaseListQuerySchema)
-  const { items, total } = await listCases(user.organisationId, filters)
-  return { items, total, page: filters.page, pageSize: filters.pageSize }
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'cases:read')
+  const query = await readQueryAs(event, CaseListQuerySchema)
+  return (await listCases(actor, query)) satisfies Page<CaseListItem>
 })

@@ -1,27 +1,11 @@
-import { insertCase, saveCase } from '#server/db/repositories/cases'
-import { findUnit } from '#server/db/repositories/equipment'
-import { rankingEvents, rankRequestFor } from '#server/domain/cases/case-record'
+import { openCase } from '#server/services/cases'
 import { NewCaseSchema } from '#shared/schemas/cases'
+import type { CaseDto } from '#shared/types/cases'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'cases:work')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'cases:work')
   const input = await readBodyAs(event, NewCaseSchema)
-  const unit = await findUnit(user.organisationId, input.unitId)
-  if (!unit) throw notFound('Unit')
-  const ranking = await rankForOrganisation(user.organisationId, rankRequestFor(unit, { symptoms: input.symptoms, readings: [], testResults: [] }), unit.equipmentClass)
-  const id = await useDb().transaction(async (transaction) => {
-    const caseId = await insertCase(
-      { organisationId: user.organisationId, unitId: unit.id, technicianId: user.id, complaint: input.complaint, symptoms: input.symptoms },
-      [
-        { type: 'case-opened', payload: { complaint: input.complaint, unitId: unit.id } },
-        ...(input.symptoms.length ? [{ type: 'symptoms-set', payload: { symptoms: input.symptoms } }] : []),
-        ...rankingEvents(null, ranking),
-      ],
-      transaction,
-    )
-    await saveCase(caseId, { ranking }, transaction)
-    return caseId
-  })
+  const opened = await openCase(actor, input, new Date())
   setResponseStatus(event, 201)
-  return caseOr404(user, id)
+  return opened satisfies CaseDto
 })

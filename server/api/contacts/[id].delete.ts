@@ -1,10 +1,10 @@
-import { deleteContact } from '#server/db/repositories/customers'
+import { deleteContact } from '#server/services/equipment'
 import { IdParamsSchema } from '#shared/schemas/common'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'equipment:edit')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'equipment:edit')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  await withDomainErrors(() => deleteContact(user.organisationId, id))
+  await deleteContact(actor, { contactId: id })
   setResponseStatus(event, 204)
   return null
 })

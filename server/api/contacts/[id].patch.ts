@@ -1,11 +1,11 @@
-import { updateContact } from '#server/db/repositories/customers'
+import { updateContact } from '#server/services/equipment'
 import { IdParamsSchema } from '#shared/schemas/common'
 import { ContactPatchSchema } from '#shared/schemas/equipment'
 import type { ContactDto } from '#shared/types/equipment-dto'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'equipment:edit')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'equipment:edit')
   const { id } = await readParamsAs(event, IdParamsSchema)
   const patch = await readBodyAs(event, ContactPatchSchema)
-  return (await withDomainErrors(() => updateContact(user.organisationId, id, patch))) satisfies ContactDto
+  return (await updateContact(actor, { contactId: id, patch })) satisfies ContactDto
 })

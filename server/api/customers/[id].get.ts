@@ -1,11 +1,9 @@
-import { findCustomer } from '#server/db/repositories/customers'
+import { getCustomer } from '#server/services/equipment'
 import { IdParamsSchema } from '#shared/schemas/common'
 import type { CustomerDto } from '#shared/types/equipment-dto'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'equipment:read')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'equipment:read')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  const customer = await findCustomer(user.organisationId, id)
-  if (!customer) throw notFound('Customer')
-  return customer satisfies CustomerDto
+  return (await getCustomer(actor, { customerId: id })) satisfies CustomerDto
 })

@@ -1,11 +1,11 @@
-import { createCustomer, findCustomer } from '#server/db/repositories/customers'
+import { createCustomer } from '#server/services/equipment'
 import { CustomerInputSchema } from '#shared/schemas/equipment'
 import type { CustomerDto } from '#shared/types/equipment-dto'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'equipment:edit')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'equipment:edit')
   const input = await readBodyAs(event, CustomerInputSchema)
-  const id = await withDomainErrors(() => createCustomer(user.organisationId, input))
+  const customer = await createCustomer(actor, input)
   setResponseStatus(event, 201)
-  return (await findCustomer(user.organisationId, id))! satisfies CustomerDto
+  return customer satisfies CustomerDto
 })

@@ -1,8 +1,8 @@
-import { closedCaseRankings } from '#server/db/repositories/cases'
-import { rankingAgreement } from '#server/domain/diagnosis/agreement'
+import { rankingTrackRecord } from '#server/services/diagnosis'
+import type { RankingAgreement } from '#shared/types/diagnosis'
 
 // The knowledge base's track record on the organisation's closed cases.
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'knowledge:read')
-  return rankingAgreement(await closedCaseRankings(user.organisationId))
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'knowledge:read')
+  return (await rankingTrackRecord(actor)) satisfies RankingAgreement
 })

@@ -1,9 +1,10 @@
+import { rankForActor } from '#server/services/diagnosis'
 import { rankRequestSchema } from '#shared/schemas/diagnosis'
-import type { RankRequest } from '#shared/types/diagnosis'
+import type { RankRequest, RankResponse } from '#shared/types/diagnosis'
 
 // Ranks causes for a described unit and what was observed; saves nothing.
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'knowledge:read')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'knowledge:read')
   const request = (await readBodyAs(event, rankRequestSchema)) as RankRequest
-  return rankForOrganisation(user.organisationId, request)
+  return (await rankForActor(actor, request)) satisfies RankResponse
 })

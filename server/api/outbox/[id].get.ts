@@ -1,7 +1,9 @@
+import { outboxMessageOf } from '#server/services/outbox'
 import { OutboxMessageParamsSchema } from '#shared/schemas/outbox'
+import type { OutboxMessageDto } from '#shared/types/outbox'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'outbox:read')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'outbox:read')
   const { id } = await readParamsAs(event, OutboxMessageParamsSchema)
-  return outboxMessageOr404(user, id)
+  return (await outboxMessageOf(actor, { messageId: id })) satisfies OutboxMessageDto
 })

@@ -1,4 +1,7 @@
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'outbox:read')
-  return listOutbox(user)
+import { listOutbox } from '#server/services/outbox'
+import type { OutboxSummaryDto } from '#shared/types/outbox'
+
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'outbox:read')
+  return (await listOutbox(actor)) satisfies OutboxSummaryDto[]
 })

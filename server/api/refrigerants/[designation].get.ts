@@ -2,8 +2,8 @@ import { DesignationParamsSchema } from '#shared/schemas/properties'
 import type { RefrigerantDto } from '#shared/types/properties-dto'
 import { resolveRefrigerant } from '#shared/utils/calculator'
 
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   await requireUser(event, 'calculator:use')
   const { designation } = await readParamsAs(event, DesignationParamsSchema)
-  return withDomainErrors(() => resolveRefrigerant(designation) satisfies RefrigerantDto)
+  return resolveRefrigerant(designation) satisfies RefrigerantDto
 })

@@ -1,7 +1,7 @@
 import type { RefrigerantDto } from '#shared/types/properties-dto'
 import { listRefrigerants } from '#shared/utils/properties'
 
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   await requireUser(event, 'calculator:use')
   return listRefrigerants() satisfies RefrigerantDto[]
 })

@@ -1,14 +1,11 @@
-import { findSite, updateSite } from '#server/db/repositories/customers'
+import { updateSite } from '#server/services/equipment'
 import { IdParamsSchema } from '#shared/schemas/common'
 import { SitePatchSchema } from '#shared/schemas/equipment'
 import type { SiteDto } from '#shared/types/equipment-dto'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'equipment:edit')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'equipment:edit')
   const { id } = await readParamsAs(event, IdParamsSchema)
   const patch = await readBodyAs(event, SitePatchSchema)
-  await withDomainErrors(() => updateSite(user.organisationId, id, patch))
-  const site = await findSite(user.organisationId, id)
-  if (!site) throw notFound('Site')
-  return site satisfies SiteDto
+  return (await updateSite(actor, { siteId: id, patch })) satisfies SiteDto
 })

@@ -1,9 +1,9 @@
-import { listSites } from '#server/db/repositories/customers'
+import { listSites } from '#server/services/equipment'
 import { SiteListQuerySchema } from '#shared/schemas/equipment'
 import type { SiteDto } from '#shared/types/equipment-dto'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'equipment:read')
-  const { customerId } = await readQueryAs(event, SiteListQuerySchema)
-  return (await listSites(user.organisationId, customerId)) satisfies SiteDto[]
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'equipment:read')
+  const query = await readQueryAs(event, SiteListQuerySchema)
+  return (await listSites(actor, query)) satisfies SiteDto[]
 })

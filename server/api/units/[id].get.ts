@@ -1,10 +1,9 @@
-import { findUnit } from '#server/db/repositories/equipment'
+import { getUnit } from '#server/services/equipment'
 import { IdParamsSchema } from '#shared/schemas/common'
+import type { UnitDto } from '#shared/types/equipment-dto'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'equipment:read')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'equipment:read')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  const unit = await findUnit(user.organisationId, id)
-  if (!unit) throw notFound('Unit')
-  return unit
+  return (await getUnit(actor, { unitId: id })) satisfies UnitDto
 })

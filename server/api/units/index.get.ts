@@ -1,6 +1,7 @@
-import { listUnits } from '#server/db/repositories/equipment'
+import { listUnits } from '#server/services/equipment'
+import type { UnitDto } from '#shared/types/equipment-dto'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'equipment:read')
-  return listUnits(user.organisationId)
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'equipment:read')
+  return (await listUnits(actor)) satisfies UnitDto[]
 })

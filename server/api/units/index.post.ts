@@ -1,11 +1,11 @@
-import { createUnit, findUnit } from '#server/db/repositories/equipment'
+import { createUnit } from '#server/services/equipment'
 import { UnitInputSchema } from '#shared/schemas/equipment'
 import type { UnitDto } from '#shared/types/equipment-dto'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'equipment:edit')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'equipment:edit')
   const input = await readBodyAs(event, UnitInputSchema)
-  const id = await withDomainErrors(() => createUnit(user.organisationId, input))
+  const unit = await createUnit(actor, input)
   setResponseStatus(event, 201)
-  return (await findUnit(user.organisationId, id))! satisfies UnitDto
+  return unit satisfies UnitDto
 })

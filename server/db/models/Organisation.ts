@@ -5,6 +5,8 @@ export class Organisation extends Model<InferAttributes<Organisation>, InferCrea
   declare id: CreationOptional<number>
   declare name: string
   declare slug: string
+  /** IANA time zone of reports and e-mails, e.g. "Europe/Stockholm". */
+  declare timeZone: CreationOptional<string>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 
@@ -14,6 +16,7 @@ export class Organisation extends Model<InferAttributes<Organisation>, InferCrea
         id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
         name: { type: DataTypes.STRING(200), allowNull: false },
         slug: { type: DataTypes.STRING(80), allowNull: false, unique: true },
+        timeZone: { type: DataTypes.STRING(64), allowNull: false, defaultValue: 'UTC' },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

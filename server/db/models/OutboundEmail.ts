@@ -1,6 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize'
 
-/** A service report e-mail and its delivery state; failed sends are retried. */
+/** A service report e-mail and its delivery state; a background job delivers it and retries failed sends. */
 export class OutboundEmail extends Model<InferAttributes<OutboundEmail>, InferCreationAttributes<OutboundEmail>> {
   declare id: CreationOptional<number>
   declare organisationId: number
@@ -13,6 +13,7 @@ export class OutboundEmail extends Model<InferAttributes<OutboundEmail>, InferCr
   declare messageId: string | null
   declare nextAttemptAt: Date | null
   declare sentAt: Date | null
+  declare jobId: CreationOptional<string | null>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 
@@ -30,6 +31,7 @@ export class OutboundEmail extends Model<InferAttributes<OutboundEmail>, InferCr
         messageId: { type: DataTypes.STRING(300), allowNull: true },
         nextAttemptAt: { type: DataTypes.DATE, allowNull: true },
         sentAt: { type: DataTypes.DATE, allowNull: true },
+        jobId: { type: DataTypes.UUID, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

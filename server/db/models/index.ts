@@ -1,5 +1,6 @@
 // Registers every model and declares every association, in one place.
 import type { Sequelize } from 'sequelize'
+import { BackgroundJob } from './BackgroundJob'
 import { CaseEvent } from './CaseEvent'
 import { Contact } from './Contact'
 import { Customer } from './Customer'
@@ -18,7 +19,7 @@ import { Upload } from './Upload'
 import { User } from './User'
 
 export {
-  CaseEvent, Contact, Customer, KbCause, KbRule, KbTest, KbVersion, Organisation, OutboundEmail,
+  BackgroundJob, CaseEvent, Contact, Customer, KbCause, KbRule, KbTest, KbVersion, Organisation, OutboundEmail,
   RefrigerantTransaction, ServiceCase, Site, Unit, UnitStage, Upload, User,
 }
 
@@ -26,7 +27,7 @@ export {
 export function initModels(sequelize: Sequelize): void {
   for (const model of [
     Organisation, User, Customer, Site, Contact, Unit, UnitStage, KbVersion, KbCause, KbTest, KbRule,
-    ServiceCase, CaseEvent, RefrigerantTransaction, Upload, OutboundEmail,
+    ServiceCase, CaseEvent, RefrigerantTransaction, Upload, OutboundEmail, BackgroundJob,
   ]) model.initModel(sequelize)
 
   Organisation.hasMany(User, { foreignKey: 'organisationId' })

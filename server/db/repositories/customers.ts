@@ -4,7 +4,7 @@ import { Op, UniqueConstraintError, col, fn, literal, where as sqlWhere, type Tr
 import { FieldConflictError, FieldNotFoundError, NotFoundError } from '#server/domain/errors'
 import type { ContactInput, ContactPatch, CustomerInput, CustomerListQuery, CustomerPatch, SiteInput, SitePatch } from '#shared/schemas/equipment'
 import type { ContactDto, CustomerDto, SiteDto } from '#shared/types/equipment-dto'
-import { atmosphericPressureAtAltitude } from '#shared/utils/properties'
+import { siteAtmosphere } from '#shared/utils/format'
 import { Contact, Customer, Site, Unit } from '../models'
 
 /** An ILIKE pattern matching `q` anywhere, with the user's own % and _ taken literally. */
@@ -17,12 +17,9 @@ function contactDto(c: Contact): ContactDto {
 }
 
 function localAtmosphereKpa(altitudeM: number): number | null {
-  try {
-    return Math.round(atmosphericPressureAtAltitude(altitudeM) * 100) / 100
-  } catch {
-    // Older rows may hold an altitude outside the standard-atmosphere formula; show no figure then.
-    return null
-  }
+  const atmosphere = siteAtmosphere(altitudeM)
+  // Older rows may hold an altitude outside the standard-atmosphere formula; show no figure then.
+  return atmosphere.fromAltitude ? Math.round(atmosphere.kpa * 100) / 100 : null
 }
 
 type SiteWithParts = Site & { customer: Customer; contacts: Contact[] }
@@ -79,7 +76,7 @@ async function assertNameFree(organisationId: number, name: string, exceptId: nu
 }
 
 /** One page of the organisation's customers, each with its sites and contacts; `q` matches customer or site. */
-export async function listCustomers(organisationId: number, f: CustomerListQuery): Promise<{ items: CustomerDto[]; total: number }> {
+export async function findCustomers(organisationId: number, f: CustomerListQuery): Promise<{ items: CustomerDto[]; total: number }> {
   const where: WhereOptions[] = [{ organisationId }]
   if (f.q) {
     const p = Customer.sequelize!.escape(containsPattern(f.q))
@@ -107,7 +104,7 @@ export async function findCustomer(organisationId: number, id: number): Promise<
 }
 
 /** Adds a customer; a name already used in the organisation is a conflict. Returns the new id. */
-export async function createCustomer(organisationId: number, input: CustomerInput): Promise<number> {
+export async function insertCustomer(organisationId: number, input: CustomerInput): Promise<number> {
   await assertNameFree(organisationId, input.name, null)
   try {
     return (await Customer.create({ organisationId, name: input.name, notes: input.notes ?? '' })).id
@@ -117,7 +114,7 @@ export async function createCustomer(organisationId: number, input: CustomerInpu
 }
 
 /** Changes a customer of the organisation (NotFoundError when it is not there). */
-export async function updateCustomer(organisationId: number, id: number, patch: CustomerPatch): Promise<void> {
+export async function saveCustomer(organisationId: number, id: number, patch: CustomerPatch): Promise<void> {
   const customer = await Customer.findOne({ where: { id, organisationId } })
   if (!customer) throw new NotFoundError('Customer not found')
   if (patch.name !== undefined) await assertNameFree(organisationId, patch.name, id)
@@ -125,7 +122,7 @@ export async function updateCustomer(organisationId: number, id: number, patch: 
 }
 
 /** The organisation's sites (of one customer when given), by name, with contacts. */
-export function listSites(organisationId: number, customerId?: number): Promise<SiteDto[]> {
+export function findSites(organisationId: number, customerId?: number): Promise<SiteDto[]> {
   return loadSites(customerId ? { organisationId, customerId } : { organisationId })
 }
 
@@ -142,7 +139,7 @@ export async function requireSite(organisationId: number, id: number, field: str
 }
 
 /** Adds a site to a customer of the organisation. Returns the new id. */
-export async function createSite(organisationId: number, input: SiteInput): Promise<number> {
+export async function insertSite(organisationId: number, input: SiteInput): Promise<number> {
   const customer = await Customer.findOne({ where: { id: input.customerId, organisationId } })
   if (!customer) throw new FieldNotFoundError('Customer not found', 'customerId')
   const site = await Site.create({ organisationId, customerId: customer.id, name: input.name, address: input.address ?? '', altitudeM: input.altitudeM })
@@ -150,20 +147,20 @@ export async function createSite(organisationId: number, input: SiteInput): Prom
 }
 
 /** Changes a site of the organisation. */
-export async function updateSite(organisationId: number, id: number, patch: SitePatch): Promise<void> {
+export async function saveSite(organisationId: number, id: number, patch: SitePatch): Promise<void> {
   const [changed] = await Site.update(patch, { where: { id, organisationId } })
   if (!changed) throw new NotFoundError('Site not found')
 }
 
 /** Adds a contact at a site of the organisation. Returns the contact. */
-export async function createContact(organisationId: number, siteId: number, input: ContactInput): Promise<ContactDto> {
+export async function insertContact(organisationId: number, siteId: number, input: ContactInput): Promise<ContactDto> {
   if (!(await Site.count({ where: { id: siteId, organisationId } }))) throw new NotFoundError('Site not found')
   const contact = await Contact.create({ organisationId, siteId, name: input.name, email: input.email, phone: input.phone ?? '', receivesReports: input.receivesReports ?? true })
   return contactDto(contact)
 }
 
 /** Changes a contact of the organisation; returns it. */
-export async function updateContact(organisationId: number, id: number, patch: ContactPatch): Promise<ContactDto> {
+export async function saveContact(organisationId: number, id: number, patch: ContactPatch): Promise<ContactDto> {
   const contact = await Contact.findOne({ where: { id, organisationId } })
   if (!contact) throw new NotFoundError('Contact not found')
   await contact.update(patch)
@@ -171,7 +168,7 @@ export async function updateContact(organisationId: number, id: number, patch: C
 }
 
 /** Removes a contact of the organisation. */
-export async function deleteContact(organisationId: number, id: number): Promise<void> {
+export async function removeContact(organisationId: number, id: number): Promise<void> {
   const removed = await Contact.destroy({ where: { id, organisationId } })
   if (!removed) throw new NotFoundError('Contact not found')
 }

@@ -1,62 +1,63 @@
-import { Op } from 'sequelize'
+// Report e-mails and their delivery state. Delivery itself is a background job per e-mail.
+import { Op, type Transaction } from 'sequelize'
 import type { EmailDto } from '#shared/types/cases'
 import { Contact, OutboundEmail, Unit } from '../models'
 import { normaliseMessageId } from '#server/domain/outbox/outbox-message'
-import { emailDto } from './cases'
+
+/** An e-mail row as the API shows it. */
+export function emailDto(e: OutboundEmail): EmailDto {
+  return {
+    id: e.id, toAddress: e.toAddress, subject: e.subject, status: e.status, attempts: e.attempts, lastError: e.lastError,
+    sentAt: e.sentAt ? e.sentAt.toISOString() : null, jobId: e.jobId ?? null,
+  }
+}
 
 /** Report recipients of a unit's site. */
-export async function reportRecipients(organisationId: number, unitId: number): Promise<string[]> {
-  const unit = await Unit.findOne({ where: { id: unitId, organisationId } })
+export async function reportRecipients(organisationId: number, unitId: number, transaction?: Transaction): Promise<string[]> {
+  const unit = await Unit.findOne({ where: { id: unitId, organisationId }, transaction })
   if (!unit) return []
-  const contacts = await Contact.findAll({ where: { organisationId, siteId: unit.siteId, receivesReports: true } })
+  const contacts = await Contact.findAll({ where: { organisationId, siteId: unit.siteId, receivesReports: true }, transaction })
   return contacts.map((c) => c.email)
 }
 
-/** Queues one report e-mail per recipient. */
-export async function queueEmails(organisationId: number, caseId: number, to: string[], subject: string) {
-  const rows = await OutboundEmail.bulkCreate(to.map((toAddress) => ({ organisationId, caseId, toAddress, subject, lastError: null, messageId: null, nextAttemptAt: new Date(), sentAt: null })))
+/** Records one pending report e-mail per recipient; returns their ids. */
+export async function insertEmails(organisationId: number, caseId: number, to: string[], subject: string, transaction: Transaction): Promise<number[]> {
+  const rows = await OutboundEmail.bulkCreate(
+    to.map((toAddress) => ({ organisationId, caseId, toAddress, subject, lastError: null, messageId: null, nextAttemptAt: null, sentAt: null })),
+    { transaction },
+  )
   return rows.map((r) => r.id)
 }
 
-/**
- * Claims the e-mails due for a (re)try: moves their next attempt five minutes on in the same
- * statement, with SKIP LOCKED, so two server processes never send the same e-mail twice; a
- * process that dies mid-send leaves the e-mail due again after those five minutes.
- */
-export async function dueEmails(limit = 20) {
-  const [rows] = await OutboundEmail.sequelize!.query(
-    `UPDATE outbound_emails SET next_attempt_at = now() + interval '5 minutes'
-      WHERE id IN (SELECT id FROM outbound_emails
-                    WHERE status IN ('pending', 'failed') AND next_attempt_at <= now()
-                    ORDER BY id LIMIT :limit FOR UPDATE SKIP LOCKED)
-      RETURNING id, organisation_id, case_id, to_address, subject, attempts`,
-    { replacements: { limit } },
-  )
-  return (rows as { id: number; organisation_id: number; case_id: number | null; to_address: string; subject: string; attempts: number }[])
-    .sort((a, b) => a.id - b.id)
-    .map((r) => ({ id: r.id, organisationId: r.organisation_id, caseId: r.case_id, toAddress: r.to_address, subject: r.subject, attempts: r.attempts }))
+/** Remembers the job that delivers an e-mail, and makes it pending again. */
+export async function setEmailJob(id: number, jobId: string, transaction: Transaction) {
+  await OutboundEmail.update({ jobId, status: 'pending' }, { where: { id }, transaction })
+}
+
+/** What the delivery job needs of one e-mail, or null when it is gone. */
+export async function emailForDelivery(id: number) {
+  const e = await OutboundEmail.findByPk(id)
+  return e ? { id: e.id, organisationId: e.organisationId, caseId: e.caseId, toAddress: e.toAddress, subject: e.subject, status: e.status } : null
 }
 
 /** Records the outcome of a delivery attempt. */
-export async function recordAttempt(id: number, outcome: { ok: true; messageId: string } | { ok: false; error: string; retryAt: Date | null }) {
+export async function recordAttempt(id: number, outcome: { ok: true; messageId: string; at: Date } | { ok: false; error: string }) {
   const row = await OutboundEmail.findByPk(id)
   if (!row) return
-  if (outcome.ok) await row.update({ status: 'sent', attempts: row.attempts + 1, messageId: outcome.messageId, sentAt: new Date(), lastError: null, nextAttemptAt: null })
-  else await row.update({ status: 'failed', attempts: row.attempts + 1, lastError: outcome.error, nextAttemptAt: outcome.retryAt })
+  if (outcome.ok) await row.update({ status: 'sent', attempts: row.attempts + 1, messageId: outcome.messageId, sentAt: outcome.at, lastError: null })
+  else await row.update({ status: 'failed', attempts: row.attempts + 1, lastError: outcome.error })
 }
 
 /** One e-mail of the organisation as the API shows it, or null. */
-export async function findEmail(organisationId: number, id: number): Promise<EmailDto | null> {
-  const row = await OutboundEmail.findOne({ where: { id, organisationId } })
+export async function findEmail(organisationId: number, id: number, transaction?: Transaction): Promise<EmailDto | null> {
+  const row = await OutboundEmail.findOne({ where: { id, organisationId }, transaction })
   return row ? emailDto(row) : null
 }
 
-/** Makes an unsent e-mail of the organisation due now; returns its state before, or null if absent. */
-export async function makeEmailDue(organisationId: number, id: number): Promise<EmailDto['status'] | null> {
-  const row = await OutboundEmail.findOne({ where: { id, organisationId } })
-  if (!row) return null
-  if (row.status !== 'sent') await row.update({ nextAttemptAt: new Date() })
-  return row.status
+/** The e-mails of one case, oldest first. */
+export async function caseEmails(organisationId: number, caseId: number): Promise<EmailDto[]> {
+  const rows = await OutboundEmail.findAll({ where: { organisationId, caseId }, order: [['id', 'ASC']] })
+  return rows.map(emailDto)
 }
 
 /** Message-IDs of the organisation's sent e-mails, normalised (see normaliseMessageId). */
@@ -64,4 +65,3 @@ export async function sentMessageIds(organisationId: number): Promise<Set<string
   const rows = await OutboundEmail.findAll({ where: { organisationId, messageId: { [Op.ne]: null } }, attributes: ['messageId'] })
   return new Set(rows.map((r) => normaliseMessageId(r.messageId!)))
 }
-

@@ -1,10 +1,8 @@
 import { Op, UniqueConstraintError, col, fn, where as sqlWhere, type Order, type Transaction, type WhereOptions } from 'sequelize'
 import { FieldConflictError, NotFoundError } from '#server/domain/errors'
 import type { UnitInput, UnitRegisterQuery, UnitStageInput } from '#shared/schemas/equipment'
-import type { UploadDto } from '#shared/types/cases'
 import type { UnitDto } from '#shared/types/equipment-dto'
-import { Customer, Site, Unit, UnitStage, Upload } from '../models'
-import { uploadDto } from './cases'
+import { Customer, Site, Unit, UnitStage } from '../models'
 import { containsPattern, requireSite } from './customers'
 
 const STAGE_ORDER = { high: 0, low: 1, single: 2 } as const
@@ -47,7 +45,7 @@ const include = [
 ]
 
 /** Every unit of the organisation, by customer then name. */
-export async function listUnits(organisationId: number): Promise<UnitDto[]> {
+export async function findUnits(organisationId: number): Promise<UnitDto[]> {
   const units = (await Unit.findAll({ where: { organisationId }, include, order: [['name', 'ASC']] })) as UnitWithParts[]
   return units.map(toDto).sort((a, b) => a.customer.localeCompare(b.customer) || a.name.localeCompare(b.name))
 }
@@ -92,7 +90,7 @@ function registerWhere(organisationId: number, f: UnitRegisterQuery): WhereOptio
 }
 
 /** One page of the organisation's register: search over names, serials, places and refrigerants, sorted server-side. */
-export async function listUnitRegister(organisationId: number, f: UnitRegisterQuery): Promise<{ items: UnitDto[]; total: number }> {
+export async function findUnitPage(organisationId: number, f: UnitRegisterQuery): Promise<{ items: UnitDto[]; total: number }> {
   const { rows, count } = await Unit.findAndCountAll({
     where: registerWhere(organisationId, f),
     include: [{ model: Site, as: 'site', required: true, include: [{ model: Customer, as: 'customer', required: true }] }],
@@ -148,7 +146,7 @@ function serialRace(error: unknown): never {
 }
 
 /** Adds a unit with its stages in one transaction; returns the new id. */
-export async function createUnit(organisationId: number, input: UnitInput): Promise<number> {
+export async function insertUnit(organisationId: number, input: UnitInput): Promise<number> {
   return Unit.sequelize!.transaction(async (transaction) => {
     await requireSite(organisationId, input.siteId, 'siteId', transaction)
     await assertSerialFree(organisationId, input.serial, null, transaction)
@@ -159,7 +157,7 @@ export async function createUnit(organisationId: number, input: UnitInput): Prom
 }
 
 /** Replaces a unit's fields and stages in one transaction (NotFoundError when not the organisation's). */
-export async function updateUnit(organisationId: number, id: number, input: UnitInput): Promise<void> {
+export async function saveUnit(organisationId: number, id: number, input: UnitInput): Promise<void> {
   await Unit.sequelize!.transaction(async (transaction) => {
     const unit = await Unit.findOne({ where: { id, organisationId }, transaction, lock: transaction.LOCK.UPDATE })
     if (!unit) throw new NotFoundError('Unit not found')
@@ -169,10 +167,4 @@ export async function updateUnit(organisationId: number, id: number, input: Unit
     await UnitStage.destroy({ where: { unitId: id }, transaction })
     await UnitStage.bulkCreate(stageRows(id, input.stages), { transaction })
   }).catch(serialRace)
-}
-
-/** Photos and documents filed against a unit of the organisation, newest first. */
-export async function unitUploads(organisationId: number, unitId: number): Promise<UploadDto[]> {
-  const rows = await Upload.findAll({ where: { organisationId, unitId }, order: [['createdAt', 'DESC'], ['id', 'DESC']] })
-  return rows.map(uploadDto)
 }

@@ -47,6 +47,12 @@ export async function findPublishedVersion(organisationId: number): Promise<KbVe
   return v ? plainVersion(v) : null
 }
 
+/** One version of the organisation by id, or null. */
+export async function findVersion(organisationId: number, id: number): Promise<KbVersionRecord | null> {
+  const v = await KbVersion.findOne({ where: { id, organisationId } })
+  return v ? plainVersion(v) : null
+}
+
 /** True when the organisation has any knowledge-base version. */
 export async function hasAnyVersion(organisationId: number, transaction?: Transaction): Promise<boolean> {
   return (await KbVersion.count({ where: { organisationId }, transaction })) > 0

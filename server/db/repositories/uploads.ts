@@ -1,7 +1,19 @@
 import type { Transaction } from 'sequelize'
-import type { UploadDto } from '#shared/types/cases'
+import type { UploadDto } from '#shared/types/uploads'
 import { Upload } from '../models'
-import { uploadDto } from './cases'
+
+/** The URLs that serve an upload's file and, for images, its preview. */
+export function uploadUrls(id: number, thumbKey: string | null): Pick<UploadDto, 'url' | 'thumbUrl'> {
+  return { url: `/api/uploads/${id}`, thumbUrl: thumbKey ? `/api/uploads/${id}?thumb=1` : null }
+}
+
+/** An upload row as the API shows it, with the URLs that serve its file and preview. */
+export function uploadDto(u: Upload): UploadDto {
+  return {
+    id: u.id, mime: u.mime, bytes: u.bytes, originalName: u.originalName, purpose: u.purpose,
+    ...uploadUrls(u.id, u.thumbKey), createdAt: u.createdAt.toISOString(),
+  }
+}
 
 export interface NewUpload {
   organisationId: number
@@ -36,8 +48,8 @@ export async function findUploadFile(organisationId: number, id: number): Promis
   return u ? { id: u.id, mime: u.mime, originalName: u.originalName, storageKey: u.storageKey, thumbKey: u.thumbKey } : null
 }
 
-/** Files attached to a unit itself (nameplate photos, certificates), oldest first. */
+/** Files attached to a unit itself (nameplate photos, certificates), newest first. */
 export async function unitUploads(organisationId: number, unitId: number): Promise<UploadDto[]> {
-  const rows = await Upload.findAll({ where: { organisationId, unitId }, order: [['id', 'ASC']] })
+  const rows = await Upload.findAll({ where: { organisationId, unitId }, order: [['createdAt', 'DESC'], ['id', 'DESC']] })
   return rows.map(uploadDto)
 }

@@ -4,12 +4,13 @@
 import type { QueryInterface, Transaction } from 'sequelize'
 import { loadKnowledgeBaseFromDirectory } from '#server/domain/diagnosis/content-loader'
 import { rankDiagnosis } from '#server/domain/diagnosis/rank'
-import { planClose, rankingEvents, rankRequestFor, type NewEvent } from '#server/domain/cases/case-record'
+import { planClose } from '#server/domain/cases/case-changes'
+import { rankingEvents, rankRequestFor, type NewEvent } from '#server/domain/cases/case-record'
 import type { CaseReading, CaseTestResult } from '#shared/types/cases'
 import type { UnitDto } from '#shared/types/equipment-dto'
 import { Organisation, ServiceCase, User } from '../models'
-import { appendEvents, insertCase, insertTransactions, saveCase } from '../repositories/cases'
-import { listUnits } from '../repositories/equipment'
+import { appendEvents, insertCase, insertTransactions, saveCase } from '../repositories/case-writes'
+import { findUnits } from '../repositories/equipment'
 import { findPublishedVersion } from '../repositories/knowledge'
 import { historyFor, openCaseFor, type DemoCase } from './demo-cases'
 import { CONTENT_DIR } from './20261202030200-import-knowledge-base'
@@ -60,7 +61,7 @@ export async function up({ context: qi }: { context: QueryInterface }) {
     const people = await User.findAll({ where: { organisationId: org.id }, order: [['id', 'ASC']] })
     const technicians = people.filter((p) => p.role === 'technician' || p.role === 'engineer')
     if (!technicians.length) continue
-    const units = await listUnits(org.id)
+    const units = await findUnits(org.id)
     const perUnit = units.length >= 8 ? 4 : 2
     await qi.sequelize.transaction(async (t) => {
       let n = 0

@@ -1,7 +1,7 @@
 // The invented service history of the demo: closed cases with readings, tests, findings and
 // refrigerant transactions, and two open cases. Numbers are built from the property module so the
 // readings agree with each other (a leaking stage really shows a low standing pressure).
-import type { CloseInput } from '#server/domain/cases/case-record'
+import type { CloseInput } from '#server/domain/cases/case-changes'
 import type { Reading, Stage, Symptom, TestSlug } from '#shared/types/diagnosis'
 import type { UnitDto } from '#shared/types/equipment-dto'
 import { isDesignation, saturationPressure, standingPressureFromCharge } from '#shared/utils/properties'

@@ -1,10 +1,9 @@
-// Rules of a service case as plain functions: what a change may do, what it appends to the
-// timeline, and how the case turns into a ranking request. No I/O here.
-import type { CaseClosure, CaseReading, CaseTestResult } from '#shared/types/cases'
-import type { RankRequest, RankResponse, Reading, Stage, Symptom, TestResult } from '#shared/types/diagnosis'
+// A service case as data: its state, the events of its timeline, and how it turns into a ranking
+// request. What a change may do is planned in case-changes.ts. No I/O here.
+import type { CaseReading, CaseTestResult } from '#shared/types/cases'
+import type { RankRequest, RankResponse, Reading, Symptom, TestResult } from '#shared/types/diagnosis'
 import type { UnitDto } from '#shared/types/equipment-dto'
-import { isDesignation } from '#shared/utils/properties'
-import { ConflictError, InvalidStateError } from '../errors'
+import { siteAtmosphere } from '#shared/utils/format'
 
 export interface CaseState {
   status: 'open' | 'closed'
@@ -17,26 +16,6 @@ export interface CaseState {
 export interface NewEvent {
   type: string
   payload: Record<string, unknown>
-}
-
-/** Refuses a change to a closed case, or one based on an outdated version of it. */
-export function assertWritable(state: CaseState, expectedVersion: number | undefined): void {
-  if (state.status === 'closed') {
-    throw new ConflictError('This case is closed. Add an addendum instead of changing the record.')
-  }
-  if (expectedVersion !== undefined && expectedVersion !== state.lockVersion) {
-    throw new ConflictError(
-      `This case was changed by someone else (your copy is version ${expectedVersion}, the case is at version ${state.lockVersion}). Reload to see their changes, then enter yours again.`,
-    )
-  }
-}
-
-/** Stages a unit actually has; a reading or result for another stage is refused. */
-export function checkStages(unit: UnitDto, items: { stage?: Stage }[], what: string): string[] {
-  const stages = new Set(unit.stages.map((s) => s.stage))
-  return items
-    .map((item, i) => (item.stage && !stages.has(item.stage) ? `${what}[${i}].stage: "${item.stage}" is not a stage of ${unit.name}; allowed: ${[...stages].join(', ')}` : ''))
-    .filter(Boolean)
 }
 
 /** The latest reading of each quantity and stage: what the unit shows now. */
@@ -72,7 +51,8 @@ export function rankRequestFor(unit: UnitDto, state: Pick<CaseState, 'symptoms' 
       }),
       design,
     },
-    site: { altitudeM: unit.siteAltitudeM },
+    // The one atmosphere-from-altitude rule of the app, so the diagnosis reads gauges as every screen does.
+    site: { altitudeM: unit.siteAltitudeM, atmosphericKpa: siteAtmosphere(unit.siteAltitudeM).kpa },
     symptoms: state.symptoms,
     readings: latestReadings(state.readings),
     testResults: latestTestResults(state.testResults),
@@ -91,34 +71,4 @@ export function rankingEvents(previous: RankResponse | null, next: RankResponse)
     events.push({ type: 'test-proposed', payload: { test: best.test, stage: best.stage, expectedGain: best.expectedGain, minutes: best.minutes } })
   }
   return events
-}
-
-export interface CloseInput {
-  confirmedCauses: { cause: CaseClosure['confirmedCauses'][number]['cause']; stage?: Stage }[]
-  workDone: string
-  parts?: string[]
-  refrigerantTransactions?: { stage: Stage; refrigerant: string; grams: number; direction: 'added' | 'recovered'; cylinder?: string }[]
-  unitStateAtDeparture?: string
-  followUp?: string
-}
-
-/** Checks a closing record against the unit and returns what is stored. */
-export function planClose(unit: UnitDto, input: CloseInput, closedBy: number | null): CaseClosure {
-  const problems = [
-    ...checkStages(unit, input.confirmedCauses, 'confirmedCauses'),
-    ...checkStages(unit, input.refrigerantTransactions ?? [], 'refrigerantTransactions'),
-  ]
-  ;(input.refrigerantTransactions ?? []).forEach((t, i) => {
-    if (!isDesignation(t.refrigerant)) problems.push(`refrigerantTransactions[${i}].refrigerant: unknown refrigerant "${t.refrigerant}"`)
-  })
-  if (problems.length) throw new InvalidStateError(problems.join('; '))
-  return {
-    confirmedCauses: input.confirmedCauses,
-    workDone: input.workDone,
-    parts: input.parts ?? [],
-    refrigerantTransactions: (input.refrigerantTransactions ?? []).map((t) => ({ ...t, cylinder: t.cylinder ?? '' })),
-    unitStateAtDeparture: input.unitStateAtDeparture ?? '',
-    followUp: input.followUp ?? '',
-    closedBy,
-  }
 }

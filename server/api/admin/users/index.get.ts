@@ -1,8 +1,7 @@
-import { listUsers } from '#server/db/repositories/users'
+import { listUsers } from '#server/services/users'
 import type { AdminUserDto } from '#shared/types/api'
 
-export default defineEventHandler(async (event) => {
-  const admin = await requireUser(event, 'users:manage')
-  const users = await listUsers(admin.organisationId)
-  return users.map((u) => ({ ...u, createdAt: u.createdAt.toISOString() }) satisfies AdminUserDto & { organisationId: number })
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'users:manage')
+  return (await listUsers(actor)) satisfies AdminUserDto[]
 })

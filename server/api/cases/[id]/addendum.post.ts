@@ -1,16 +1,11 @@
-import { appendEvents } from '#server/db/repositories/cases'
+import { addAddendum } from '#server/services/cases'
 import { NoteSchema } from '#shared/schemas/cases'
 import { IdParamsSchema } from '#shared/schemas/common'
+import type { CaseDto } from '#shared/types/cases'
 
-// A closed case stays read-only; an addendum is the one thing that may still be added to it.
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'cases:work')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'cases:work')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  const { text } = await readBodyAs(event, NoteSchema)
-  const current = await caseOr404(user, id)
-  if (current.status !== 'closed') {
-    throw createError({ status: 409, statusText: 'Conflict', message: 'An addendum is for closed cases; add a note to an open case instead' })
-  }
-  await useDb().transaction((transaction) => appendEvents(id, user.id, [{ type: 'addendum', payload: { text } }], transaction))
-  return caseOr404(user, id)
+  const input = await readBodyAs(event, NoteSchema)
+  return (await addAddendum(actor, { ...input, caseId: id }, new Date())) satisfies CaseDto
 })

@@ -1,25 +1,11 @@
-import { insertTransactions } from '#server/db/repositories/cases'
-import { planClose } from '#server/domain/cases/case-record'
+import { closeCase } from '#server/services/cases'
 import { CloseCaseSchema } from '#shared/schemas/cases'
 import { IdParamsSchema } from '#shared/schemas/common'
+import type { CaseDto } from '#shared/types/cases'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'cases:work')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'cases:work')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  const { version, ...input } = await readBodyAs(event, CloseCaseSchema)
-  const closed = await changeCase(event, user, id, version, async (_current, unit, transaction) => {
-    const closure = planClose(unit, input, user.id)
-    await insertTransactions(
-      { organisationId: user.organisationId, caseId: id, unitId: unit.id, byUserId: user.id },
-      closure.refrigerantTransactions,
-      transaction!,
-    )
-    return {
-      changes: { status: 'closed', closure, confirmedCauses: closure.confirmedCauses, closedAt: new Date() },
-      events: [{ type: 'case-closed', payload: { ...closure } }],
-    }
-  }, { locked: true })
-  invalidateDiagnosisCache(user.organisationId)
-  await queueServiceReport(user, closed)
-  return caseOr404(user, id)
+  const input = await readBodyAs(event, CloseCaseSchema)
+  return (await closeCase(actor, { ...input, caseId: id }, new Date())) satisfies CaseDto
 })

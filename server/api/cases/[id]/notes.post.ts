@@ -1,12 +1,11 @@
+import { addNote } from '#server/services/cases'
 import { NoteSchema } from '#shared/schemas/cases'
 import { IdParamsSchema } from '#shared/schemas/common'
+import type { CaseDto } from '#shared/types/cases'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'cases:work')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'cases:work')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  const { text, version } = await readBodyAs(event, NoteSchema)
-  return changeCase(event, user, id, version, (current) => ({
-    changes: { notes: current.notes ? `${current.notes}\n\n${text}` : text },
-    events: [{ type: 'note', payload: { text } }],
-  }))
+  const input = await readBodyAs(event, NoteSchema)
+  return (await addNote(actor, { ...input, caseId: id }, new Date())) satisfies CaseDto
 })

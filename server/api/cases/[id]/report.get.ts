@@ -1,9 +1,10 @@
+import { serviceReport } from '#server/services/reports'
 import { IdParamsSchema } from '#shared/schemas/common'
+import type { ServiceReport } from '#shared/types/reports'
 
 // The service report as data; the printable page, the PDF and the e-mail share this model.
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'cases:read')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'cases:read')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  const found = await caseOr404(user, id)
-  return serviceReportOf(found, user.organisationId)
+  return (await serviceReport(actor, { caseId: id })) satisfies ServiceReport
 })

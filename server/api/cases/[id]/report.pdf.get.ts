@@ -1,16 +1,10 @@
-import { contentDisposition } from '#server/domain/files/content-disposition'
+import { serviceReportPdf } from '#server/services/reports'
 import { IdParamsSchema } from '#shared/schemas/common'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'cases:read')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'cases:read')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  const found = await caseOr404(user, id)
-  const pdf = await renderReportPdf(await serviceReportOf(found, user.organisationId))
-  setResponseHeaders(event, {
-    'content-type': 'application/pdf',
-    'content-length': pdf.length,
-    'content-disposition': contentDisposition('inline', reportPdfName(id)),
-    'cache-control': 'private, no-store',
-  })
-  return pdf
+  const pdf = await serviceReportPdf(actor, { caseId: id })
+  setResponseHeaders(event, fileHeaders(pdf, { download: false, cache: 'private, no-store' }))
+  return pdf.bytes
 })

@@ -1,13 +1,11 @@
+import { setSymptoms } from '#server/services/cases'
 import { SetSymptomsSchema } from '#shared/schemas/cases'
 import { IdParamsSchema } from '#shared/schemas/common'
+import type { CaseDto } from '#shared/types/cases'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'cases:work')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'cases:work')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  const { symptoms, version } = await readBodyAs(event, SetSymptomsSchema)
-  return changeCase(event, user, id, version, () => ({
-    changes: { symptoms: [...new Set(symptoms)] },
-    events: [{ type: 'symptoms-set', payload: { symptoms } }],
-    rerank: true,
-  }))
+  const input = await readBodyAs(event, SetSymptomsSchema)
+  return (await setSymptoms(actor, { ...input, caseId: id }, new Date())) satisfies CaseDto
 })

@@ -1,15 +1,13 @@
-import { assertCaseTakesUploads } from '#server/domain/uploads/upload-rules'
+import { addCaseFile, assertCaseTakesFiles } from '#server/services/uploads'
 import { IdParamsSchema } from '#shared/schemas/common'
+import type { UploadDto } from '#shared/types/uploads'
 
 // Multipart: `file` (JPEG, PNG, WebP or PDF by content, 10 MB at most) and optional `purpose`.
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'cases:work')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'cases:work')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  // Refuse a foreign or closed case before taking the bytes in.
-  const current = await caseOr404(user, id)
-  await withDomainErrors(() => assertCaseTakesUploads(current.status))
-  const form = await readUploadForm(event)
-  const saved = await saveUpload(user, { caseId: id }, form)
+  await assertCaseTakesFiles(actor, { caseId: id })
+  const saved = await addCaseFile(actor, { caseId: id, file: await readUploadForm(event) }, new Date())
   setResponseStatus(event, 201)
-  return saved
+  return saved satisfies UploadDto
 })

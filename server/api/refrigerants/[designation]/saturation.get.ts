@@ -2,9 +2,9 @@ import { DesignationParamsSchema, SaturationQuerySchema } from '#shared/schemas/
 import type { SaturationDto } from '#shared/types/properties-dto'
 import { resolveRefrigerant, saturationLookup } from '#shared/utils/calculator'
 
-export default defineEventHandler(async (event) => {
+export default defineApiHandler(async (event) => {
   await requireUser(event, 'calculator:use')
   const { designation } = await readParamsAs(event, DesignationParamsSchema)
   const query = await readQueryAs(event, SaturationQuerySchema)
-  return withDomainErrors(() => saturationLookup(resolveRefrigerant(designation), query) satisfies SaturationDto)
+  return saturationLookup(resolveRefrigerant(designation), query) satisfies SaturationDto
 })

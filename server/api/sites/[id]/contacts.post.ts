@@ -1,13 +1,13 @@
-import { createContact } from '#server/db/repositories/customers'
+import { createContact } from '#server/services/equipment'
 import { IdParamsSchema } from '#shared/schemas/common'
 import { ContactInputSchema } from '#shared/schemas/equipment'
 import type { ContactDto } from '#shared/types/equipment-dto'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'equipment:edit')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'equipment:edit')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  const input = await readBodyAs(event, ContactInputSchema)
-  const contact = await withDomainErrors(() => createContact(user.organisationId, id, input))
+  const contact = await readBodyAs(event, ContactInputSchema)
+  const created = await createContact(actor, { siteId: id, contact })
   setResponseStatus(event, 201)
-  return contact satisfies ContactDto
+  return created satisfies ContactDto
 })

@@ -1,10 +1,9 @@
-import { findUnit } from '#server/db/repositories/equipment'
-import { unitUploads } from '#server/db/repositories/uploads'
+import { unitFiles } from '#server/services/equipment'
 import { IdParamsSchema } from '#shared/schemas/common'
+import type { UploadDto } from '#shared/types/uploads'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'equipment:read')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'equipment:read')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  if (!(await findUnit(user.organisationId, id))) throw notFound('Unit')
-  return unitUploads(user.organisationId, id)
+  return (await unitFiles(actor, { unitId: id })) satisfies UploadDto[]
 })

@@ -1,13 +1,13 @@
-import { findUnit } from '#server/db/repositories/equipment'
+import { addUnitFile, assertUnitTakesFiles } from '#server/services/uploads'
 import { IdParamsSchema } from '#shared/schemas/common'
+import type { UploadDto } from '#shared/types/uploads'
 
 // A file about the unit itself (nameplate, certificate), not tied to one case.
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, ['equipment:edit', 'cases:work'])
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, ['equipment:edit', 'cases:work'])
   const { id } = await readParamsAs(event, IdParamsSchema)
-  if (!(await findUnit(user.organisationId, id))) throw notFound('Unit')
-  const form = await readUploadForm(event)
-  const saved = await saveUpload(user, { unitId: id }, form)
+  await assertUnitTakesFiles(actor, { unitId: id })
+  const saved = await addUnitFile(actor, { unitId: id, file: await readUploadForm(event) }, new Date())
   setResponseStatus(event, 201)
-  return saved
+  return saved satisfies UploadDto
 })

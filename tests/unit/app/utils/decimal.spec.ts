@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { decimalText, decimalOrNull } from '../../../../app/utils/decimal'
+import { decimalText, decimalOrNull, parseDecimal } from '~/utils/decimal'
 
 describe('decimalOrNull', () => {
   it('reads points, commas, signs and the typographic minus', () => {
@@ -18,5 +18,28 @@ describe('decimalOrNull', () => {
   it('prints numbers back for editing', () => {
     expect(decimalText(null)).toBe('')
     expect(decimalText(-80)).toBe('-80')
+  })
+})
+
+describe('parseDecimal', () => {
+  it('reads the ways a technician types a number (common practice, no source)', () => {
+    expect(parseDecimal('-80')).toEqual({ state: 'ok', value: -80 })
+    expect(parseDecimal('\u221280')).toEqual({ state: 'ok', value: -80 }) // typographic minus
+    expect(parseDecimal(' 1,5 ')).toEqual({ state: 'ok', value: 1.5 }) // decimal comma
+    expect(parseDecimal('1 992.3')).toEqual({ state: 'ok', value: 1992.3 }) // space between thousands
+    expect(parseDecimal('.5')).toEqual({ state: 'ok', value: 0.5 })
+    expect(parseDecimal('2e3')).toEqual({ state: 'ok', value: 2000 })
+  })
+
+  it('treats empty input and a lone sign as not typed yet', () => {
+    for (const text of ['', '  ', '-', '\u2212', '+']) expect(parseDecimal(text)).toEqual({ state: 'empty' })
+  })
+
+  it('refuses anything else with a message, never NaN', () => {
+    for (const text of ['abc', '1.2.3', '1,2,3', '1,5.2', '--1', '1e999', 'NaN', 'Infinity', '0x10']) {
+      const r = parseDecimal(text)
+      expect(r.state, text).toBe('invalid')
+      if (r.state === 'invalid') expect(r.message).toMatch(/Type a number/)
+    }
   })
 })

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { SaturationQuerySchema, StandingPressureBodySchema, UnitsConversionQuerySchema } from '#shared/schemas/properties'
+import { SaturationQuerySchema, StandingPressureBodySchema, MeasurementConversionQuerySchema } from '#shared/schemas/properties'
 
 const fields = (r: { success: boolean; error?: { issues: { path: PropertyKey[] }[] } }) => (r.error?.issues ?? []).map((i) => i.path.join('.'))
 
@@ -56,10 +56,10 @@ describe('StandingPressureBodySchema', () => {
   })
 })
 
-describe('UnitsConversionQuerySchema', () => {
+describe('MeasurementConversionQuerySchema', () => {
   it('accepts one reading with two units of the same kind', () => {
-    expect(UnitsConversionQuerySchema.parse({ value: '15', from: 'psig', to: 'kPa' })).toEqual({ value: 15, from: 'psig', to: 'kPa' })
-    expect(fields(UnitsConversionQuerySchema.safeParse({ value: '15', from: 'psig', to: 'C' }))).toEqual(['to'])
-    expect(fields(UnitsConversionQuerySchema.safeParse({ value: '15', from: 'psig', to: 'kPa', atmosphericKpa: '100', altitudeM: '10' }))).toEqual(['altitudeM'])
+    expect(MeasurementConversionQuerySchema.parse({ value: '15', from: 'psig', to: 'kPa' })).toEqual({ value: 15, from: 'psig', to: 'kPa' })
+    expect(fields(MeasurementConversionQuerySchema.safeParse({ value: '15', from: 'psig', to: 'C' }))).toEqual(['to'])
+    expect(fields(MeasurementConversionQuerySchema.safeParse({ value: '15', from: 'psig', to: 'kPa', atmosphericKpa: '100', altitudeM: '10' }))).toEqual(['altitudeM'])
   })
 })

@@ -1,17 +1,14 @@
+import { sendServiceReport } from '#server/services/reports'
 import { IdParamsSchema } from '#shared/schemas/common'
 import { SendReportSchema } from '#shared/schemas/reports'
 import type { ReportSendResult } from '#shared/types/reports'
 
-// Queues the report e-mail; delivery (and its retries) runs in the background.
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'cases:work')
+// Queues the report e-mail; delivery (and its retries) runs as background jobs.
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'cases:work')
   const { id } = await readParamsAs(event, IdParamsSchema)
   const { to } = await readBodyAs(event, SendReportSchema)
-  const found = await caseOr404(user, id)
-  const queued = await queueServiceReport(user, found, to ? [to] : undefined)
-  if (!queued.length) {
-    throw createError({ status: 422, statusText: 'Unprocessable Entity', message: 'No one at this site receives reports. Enter an e-mail address to send it to.' })
-  }
+  const sent = await sendServiceReport(actor, { caseId: id, to }, new Date())
   setResponseStatus(event, 202)
-  return { queued: queued.length, emails: (await caseOr404(user, id)).emails } satisfies ReportSendResult
+  return sent satisfies ReportSendResult
 })

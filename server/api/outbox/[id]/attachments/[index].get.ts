@@ -1,18 +1,12 @@
-import { contentDisposition } from '#server/domain/files/content-disposition'
+import { outboxAttachment } from '#server/services/outbox'
 import { OutboxAttachmentParamsSchema } from '#shared/schemas/outbox'
 
-export default defineEventHandler(async (event) => {
-  const user = await requireUser(event, 'outbox:read')
+export default defineApiHandler(async (event) => {
+  const actor = await requireUser(event, 'outbox:read')
   const { id, index } = await readParamsAs(event, OutboxAttachmentParamsSchema)
-  const file = await outboxAttachmentOr404(user, id, index)
+  const file = await outboxAttachment(actor, { messageId: id, index })
   // Always a download: an attachment's declared type is unchecked, and shown inline an HTML one
   // would run on this site's origin.
-  setResponseHeaders(event, {
-    'content-type': file.contentType,
-    'content-length': file.bytes.length,
-    'content-disposition': contentDisposition('attachment', file.filename),
-    'x-content-type-options': 'nosniff',
-    'cache-control': 'private, no-store',
-  })
+  setResponseHeaders(event, fileHeaders(file, { download: true, cache: 'private, no-store' }))
   return file.bytes
 })

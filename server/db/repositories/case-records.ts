@@ -1,0 +1,167 @@
+// Reading a case record: the full record in one statement, its current state for a change, the
+// case list with filters, and a unit's refrigerant log.
+import { Op, QueryTypes, type Transaction, type WhereOptions } from 'sequelize'
+import type { CaseClosure, CaseDto, CaseEventDto, CaseListItem, CaseReading, CaseTestResult, EmailDto, RefrigerantTransactionDto } from '#shared/types/cases'
+import type { RankResponse, Symptom } from '#shared/types/diagnosis'
+import type { UnitDto } from '#shared/types/equipment-dto'
+import type { CaseState } from '#server/domain/cases/case-record'
+import { Customer, RefrigerantTransaction, ServiceCase, Site, Unit, User } from '../models'
+import { findUnit } from './equipment'
+import { uploadUrls } from './uploads'
+
+/** A case's current state with what a change needs besides it. */
+export interface LockedCase extends CaseState {
+  id: number
+  organisationId: number
+  unitId: number
+  ranking: RankResponse | null
+  notes: string
+}
+
+const iso = (d: Date | null) => (d ? d.toISOString() : null)
+
+/** The unit of a case of the organisation, or null. */
+export async function caseUnitId(organisationId: number, id: number): Promise<number | null> {
+  const c = (await ServiceCase.findOne({ where: { id, organisationId }, attributes: ['unitId'], raw: true })) as { unitId: number } | null
+  return c?.unitId ?? null
+}
+
+/**
+ * The current state of a case of the organisation (null if absent). With a transaction it also
+ * locks the row until that transaction ends.
+ */
+export async function readCaseState(organisationId: number, id: number, lockIn?: Transaction): Promise<LockedCase | null> {
+  const c = (await ServiceCase.findOne({
+    where: { id, organisationId }, raw: true, ...(lockIn ? { transaction: lockIn, lock: lockIn.LOCK.UPDATE } : {}),
+  })) as ServiceCase | null
+  if (!c) return null
+  return {
+    id: c.id, organisationId: c.organisationId, unitId: c.unitId, status: c.status, lockVersion: c.lockVersion,
+    symptoms: c.symptoms as Symptom[], readings: c.readings as CaseReading[], testResults: c.testResults as CaseTestResult[],
+    ranking: c.ranking as RankResponse | null, notes: c.notes,
+  }
+}
+
+// One round trip for the whole record: the case row, its timeline with people's names, its
+// refrigerant transactions, uploads and e-mails, each aggregated as JSON. This runs after every
+// step a technician takes, so it is kept to a single statement.
+const CASE_RECORD_SQL = `
+SELECT c.id, c.unit_id, c.status, c.complaint, c.symptoms, c.readings, c.test_results, c.ranking, c.lock_version,
+       c.opened_at, c.closed_at, c.notes, c.closure, t.name AS technician,
+       (SELECT coalesce(json_agg(json_build_object('id', e.id, 'at', e.at, 'type', e.type, 'byUserId', e.by_user_id, 'by', u.name, 'payload', e.payload) ORDER BY e.id), '[]')
+          FROM case_events e LEFT JOIN users u ON u.id = e.by_user_id WHERE e.case_id = c.id) AS events,
+       (SELECT coalesce(json_agg(json_build_object('id', r.id, 'stage', r.stage, 'refrigerant', r.refrigerant, 'grams', r.grams, 'direction', r.direction, 'cylinder', r.cylinder, 'at', r.at) ORDER BY r.id), '[]')
+          FROM refrigerant_transactions r WHERE r.case_id = c.id) AS transactions,
+       (SELECT coalesce(json_agg(json_build_object('id', f.id, 'mime', f.mime, 'bytes', f.bytes, 'originalName', f.original_name, 'purpose', f.purpose, 'thumbKey', f.thumb_key, 'createdAt', f.created_at) ORDER BY f.id), '[]')
+          FROM uploads f WHERE f.case_id = c.id AND f.organisation_id = c.organisation_id) AS uploads,
+       (SELECT coalesce(json_agg(json_build_object('id', m.id, 'toAddress', m.to_address, 'subject', m.subject, 'status', m.status, 'attempts', m.attempts, 'lastError', m.last_error, 'sentAt', m.sent_at, 'jobId', m.job_id) ORDER BY m.id), '[]')
+          FROM outbound_emails m WHERE m.case_id = c.id AND m.organisation_id = c.organisation_id) AS emails
+  FROM cases c LEFT JOIN users t ON t.id = c.technician_id
+ WHERE c.id = :id AND c.organisation_id = :organisationId`
+
+interface CaseRecordRow {
+  id: number; unit_id: number; status: CaseDto['status']; complaint: string; symptoms: Symptom[]; readings: CaseReading[]
+  test_results: CaseTestResult[]; ranking: RankResponse | null; lock_version: number; opened_at: Date; closed_at: Date | null
+  notes: string; closure: CaseClosure | null; technician: string | null
+  events: { id: number; at: string; type: CaseEventDto['type']; byUserId: number | null; by: string | null; payload: Record<string, unknown> }[]
+  transactions: (Omit<RefrigerantTransactionDto, 'at'> & { at: string })[]
+  uploads: { id: number; mime: string; bytes: number; originalName: string; purpose: string; thumbKey: string | null; createdAt: string }[]
+  emails: (Omit<EmailDto, 'sentAt'> & { sentAt: string | null })[]
+}
+
+// Timestamps inside JSON come back as PostgreSQL text; the API speaks ISO 8601 in UTC.
+const isoText = (t: string | null) => (t ? new Date(t).toISOString() : null)
+
+/**
+ * The full case record of the organisation, or null. `knownUnit` saves a query when the caller
+ * already loaded the case's unit.
+ */
+export async function findCase(organisationId: number, id: number, knownUnit?: UnitDto): Promise<CaseDto | null> {
+  const [c] = await ServiceCase.sequelize!.query<CaseRecordRow>(CASE_RECORD_SQL, { replacements: { id, organisationId }, type: QueryTypes.SELECT })
+  if (!c) return null
+  const unit = knownUnit && knownUnit.id === c.unit_id ? knownUnit : await findUnit(organisationId, c.unit_id)
+  if (!unit) return null
+  return {
+    id: c.id,
+    unitId: c.unit_id,
+    status: c.status,
+    complaint: c.complaint,
+    symptoms: c.symptoms,
+    readings: c.readings,
+    testResults: c.test_results,
+    ranking: c.ranking,
+    events: c.events.map((e) => ({ ...e.payload, id: Number(e.id), at: isoText(e.at)!, type: e.type, by: e.by, byUserId: e.byUserId })),
+    version: c.lock_version,
+    technician: c.technician,
+    openedAt: c.opened_at.toISOString(),
+    closedAt: iso(c.closed_at),
+    notes: c.notes,
+    closure: c.closure,
+    unit,
+    transactions: c.transactions.map((t) => ({ ...t, at: isoText(t.at)! })),
+    uploads: c.uploads.map(({ thumbKey, ...u }) => ({ ...u, ...uploadUrls(u.id, thumbKey), createdAt: isoText(u.createdAt)! })),
+    emails: c.emails.map((m) => ({ ...m, sentAt: isoText(m.sentAt) })),
+  }
+}
+
+export interface CaseFilters {
+  status?: 'open' | 'closed'
+  customerId?: number
+  unitId?: number
+  technicianId?: number
+  cause?: string
+  from?: Date
+  to?: Date
+  q?: string
+  sort: 'opened' | 'unit' | 'status'
+  direction: 'asc' | 'desc'
+  page: number
+  pageSize: number
+}
+
+/** One page of the organisation's cases, open ones first, with full-text search over complaint and notes. */
+export async function findCases(organisationId: number, f: CaseFilters): Promise<{ items: CaseListItem[]; total: number }> {
+  const where: WhereOptions[] = [{ organisationId }]
+  if (f.status) where.push({ status: f.status })
+  if (f.unitId) where.push({ unitId: f.unitId })
+  if (f.technicianId) where.push({ technicianId: f.technicianId })
+  if (f.from) where.push({ openedAt: { [Op.gte]: f.from } })
+  if (f.to) where.push({ openedAt: { [Op.lte]: f.to } })
+  if (f.cause) where.push(ServiceCase.sequelize!.literal(`confirmed_causes @> ${ServiceCase.sequelize!.escape(JSON.stringify([{ cause: f.cause }]))}::jsonb`))
+  if (f.q) where.push(ServiceCase.sequelize!.literal(`search @@ websearch_to_tsquery('english', ${ServiceCase.sequelize!.escape(f.q)})`))
+  const siteWhere = f.customerId ? { customerId: f.customerId } : undefined
+  const order: [unknown, string][] = [[ServiceCase.sequelize!.literal(`CASE WHEN "ServiceCase"."status" = 'open' THEN 0 ELSE 1 END`), 'ASC']]
+  if (f.sort === 'unit') order.push([{ model: Unit, as: 'unit' }, 'name', f.direction.toUpperCase()] as unknown as [unknown, string])
+  else if (f.sort === 'status') order.push(['status', f.direction.toUpperCase()])
+  order.push(['openedAt', f.sort === 'opened' ? f.direction.toUpperCase() : 'DESC'])
+  const { rows, count } = await ServiceCase.findAndCountAll({
+    where: { [Op.and]: where },
+    include: [
+      { model: Unit, as: 'unit', required: true, include: [{ model: Site, as: 'site', required: true, where: siteWhere, include: [{ model: Customer, as: 'customer' }] }] },
+      { model: User, as: 'technician' },
+    ],
+    order: order as never,
+    limit: f.pageSize,
+    offset: (f.page - 1) * f.pageSize,
+    distinct: true,
+  })
+  type Row = ServiceCase & { unit: Unit & { site: Site & { customer: Customer } }; technician: User | null }
+  return {
+    total: count,
+    items: (rows as Row[]).map((c) => {
+      const top = (c.ranking as RankResponse | null)?.causes[0]
+      return {
+        id: c.id, status: c.status, complaint: c.complaint, unitId: c.unitId, unitName: c.unit.name, customer: c.unit.site.customer.name,
+        technician: c.technician?.name ?? null, openedAt: c.openedAt.toISOString(), closedAt: iso(c.closedAt),
+        confirmedCauses: c.confirmedCauses as CaseListItem['confirmedCauses'], topCause: top ? { cause: top.cause, stage: top.stage, probability: top.probability } : null,
+      }
+    }),
+  }
+}
+
+/** Refrigerant log of a unit, newest first. */
+export async function unitTransactions(organisationId: number, unitId: number): Promise<RefrigerantTransactionDto[]> {
+  const rows = await RefrigerantTransaction.findAll({ where: { organisationId, unitId }, order: [['at', 'DESC']] })
+  return rows.map((t) => ({ id: t.id, stage: t.stage as RefrigerantTransactionDto['stage'], refrigerant: t.refrigerant, grams: t.grams, direction: t.direction, cylinder: t.cylinder, at: t.at.toISOString() }))
+}
+

@@ -1,0 +1,90 @@
+// Timeline events in words. The same sentences appear on the case page, in replays and wherever a
+// case's history is shown; the event types and payloads stay the API's.
+import type { CaseEventDto, CaseEventType } from '#shared/types/cases'
+import type { Quantity, ReadingUnit, Stage } from '#shared/types/diagnosis'
+import { formatPercent, formatReading } from '../format/figures'
+import { formatDuration } from '../format/dates'
+import { causeLabel, hypothesisLabel } from './causes'
+import { readingName } from './quantities'
+import { stageLabel } from './stages'
+import { symptomLabel } from './symptoms'
+import { outcomeLabel, testLabel } from './tests'
+import { inPlainWords } from './text'
+import { NO_TITLES, type KnowledgeBaseTitles } from './titles'
+import type { WordForm, WordLabel } from './words'
+
+/** What happened, as a timeline heading. */
+export const EVENT_WORDS: Readonly<Record<CaseEventType, WordLabel>> = {
+  'case-opened': { short: 'Opened', long: 'Case opened' },
+  'symptoms-set': { short: 'Symptoms', long: 'Symptoms set' },
+  'reading-entered': { short: 'Reading', long: 'Reading entered' },
+  'test-proposed': { short: 'Proposed', long: 'Test proposed' },
+  'outcome-recorded': { short: 'Outcome', long: 'Outcome recorded' },
+  note: { short: 'Note', long: 'Note' },
+  photo: { short: 'File', long: 'Photo or document added' },
+  'ranking-snapshot': { short: 'Ranking', long: 'Likely causes updated' },
+  'case-closed': { short: 'Closed', long: 'Case closed' },
+  addendum: { short: 'Addendum', long: 'Addendum' },
+  'report-queued': { short: 'Report queued', long: 'Report queued for e-mail' },
+  'report-sent': { short: 'Report sent', long: 'Report e-mailed' },
+  'report-failed': { short: 'Report not sent', long: 'Report e-mail failed' },
+}
+
+/** "Case opened". */
+export function eventLabel(type: CaseEventType, form: WordForm = 'long'): string {
+  return EVENT_WORDS[type]?.[form] ?? inPlainWords(String(type))
+}
+
+type Payload = Record<string, unknown>
+const str = (v: unknown) => (typeof v === 'string' ? v : '')
+const onStage = (stage: unknown) => (typeof stage === 'string' && stage ? ` on the ${stageLabel(stage as Stage)}` : '')
+
+/** The detail line of a timeline event: what was read, proposed, found or sent, in words. */
+export function eventDetail(event: Pick<CaseEventDto, 'type'> & Payload, titles: KnowledgeBaseTitles = NO_TITLES): string {
+  const p = event as Payload
+  const test = (slug: unknown) => testLabel(str(slug), { title: titles.tests[str(slug)] })
+  switch (event.type) {
+    case 'case-opened':
+      return str(p.complaint)
+    case 'symptoms-set':
+      return ((p.symptoms as string[] | undefined) ?? []).map((s) => symptomLabel(s)).join(', ') || 'none'
+    case 'reading-entered': {
+      const reading = { quantity: p.quantity as Quantity, stage: (p.stage as Stage | undefined) ?? undefined }
+      return `${readingName(reading)}: ${formatReading({ value: p.value as number | boolean, unit: p.unit as ReadingUnit })}`
+    }
+    case 'test-proposed':
+      return `${test(p.test)}${onStage(p.stage)}${typeof p.minutes === 'number' ? ` (${formatDuration(p.minutes)})` : ''}`
+    case 'outcome-recorded': {
+      const outcome = outcomeLabel(str(p.test), str(p.outcome), { label: titles.outcomes[str(p.test)]?.[str(p.outcome)] })
+      return `${test(p.test)}${onStage(p.stage)}: ${outcome}${p.note ? ` (${str(p.note)})` : ''}`
+    }
+    case 'note':
+    case 'addendum':
+      return str(p.text)
+    case 'photo':
+      return str(p.name)
+    case 'ranking-snapshot':
+      return ((p.top as { cause: string; stage?: Stage; probability: number }[] | undefined) ?? [])
+        .map((t) => `${hypothesisLabel(t, { title: titles.causes[t.cause] })} ${formatPercent(t.probability)}`)
+        .join(' · ')
+    case 'case-closed': {
+      const confirmed = (p.confirmedCauses as { cause: string; stage?: Stage }[] | undefined) ?? []
+      const causes = confirmed.map((c) => causeOnStage(c, titles)).join('; ')
+      return causes ? `Confirmed: ${causes}` : ''
+    }
+    case 'report-queued':
+      return `to ${((p.to as string[] | undefined) ?? []).join(', ')}`
+    case 'report-sent':
+      return `to ${str(p.to)}`
+    case 'report-failed':
+      return `${str(p.to)}: ${str(p.error)}${p.willRetry ? ' (will retry)' : ''}`
+    default:
+      return ''
+  }
+}
+
+/** A confirmed or likely cause in words for lists and reports ("Refrigerant leak (undercharge), Low stage"). */
+export function causeOnStage(c: { cause: string; stage?: Stage | null }, titles: KnowledgeBaseTitles = NO_TITLES): string {
+  const cause = causeLabel(c.cause, { title: titles.causes[c.cause] })
+  return c.stage ? `${cause}, ${stageLabel(c.stage)}` : cause
+}
