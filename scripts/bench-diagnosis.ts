@@ -14,7 +14,7 @@ import { Engine } from 'json-rules-engine'
 import { CAUSES, type Cause, type RankRequest, type Reading, type Stage } from '#shared/types/diagnosis'
 import { saturationPressure } from '#shared/utils/properties'
 import { loadKnowledgeBaseFromDirectory } from '#server/domain/diagnosis/content-loader'
-import { CUSTOM_OPERATORS, prepareKnowledgeBase, runRules } from '#server/domain/diagnosis/engine'
+import { CUSTOM_OPERATORS, prepareKnowledgeBase, runFindings } from '#server/domain/diagnosis/engine'
 import { FACT_SPECS } from '#server/domain/diagnosis/fact-vocabulary'
 import { deriveFacts } from '#server/domain/diagnosis/facts'
 import { ruleDefSchema, type KnowledgeBase, type LeafCondition, type RuleDef } from '#server/domain/diagnosis/knowledge-base'
@@ -141,13 +141,13 @@ async function main(): Promise<void> {
   const genRank = await time(100, 10, () => rankDiagnosis(generated, RICH))
 
   const prepared = prepareKnowledgeBase(generated)
-  const ours = await time(100, 10, () => runRules(prepared, facts))
+  const ours = await time(100, 10, () => runFindings(prepared, facts))
   const bareEngine = new Engine(generated.rules.map((r) => ({ name: r.name, conditions: r.conditions as never, event: { type: 'evidence', params: { id: r.name } } })), { allowUndefinedFacts: true })
   for (const [name, fn] of Object.entries(CUSTOM_OPERATORS)) bareEngine.addOperator(name, fn)
   const bare = await time(30, 5, () => bareEngine.run(facts))
-  const evaluated = (await runRules(prepared, facts)).evaluated
+  const evaluated = (await runFindings(prepared, facts)).evaluated
 
-  console.log(`Seed base: ${seed.rules.length} rules (${prepareKnowledgeBase(seed).rules.length} after stage expansion)`)
+  console.log(`Seed base: ${seed.rules.length} rules (${prepareKnowledgeBase(seed).findings.length} after stage expansion)`)
   console.log(`  rankDiagnosis, rich cascade case   ${fmt(seedRich)}`)
   console.log(`  rankDiagnosis, sparse single case  ${fmt(seedSparse)}`)
   console.log(`Generated base: ${GENERATED_RULES} rules over ${FACT_SPECS.size} vocabulary facts; ${Object.keys(facts).length} facts present, ${evaluated} rules have all their facts`)

@@ -51,7 +51,9 @@ async function learnedCounts(organisationId: number, group: { equipmentClass: st
   const hit = learned.get(key)
   if (hit && hit.until > Date.now()) return hit.counts
   const rows = await confirmedCauseCounts(organisationId, group)
-  const counts = rows.map((r) => ({ cause: r.cause as Cause, stage: (r.stage ?? undefined) as Stage | undefined, count: r.count }))
+  // The case record does not yet say how each cause was confirmed; closing a case requires the work
+  // done, so confirmations at close are counted as confirmed by repair until that is recorded.
+  const counts = rows.map((r) => ({ cause: r.cause as Cause, stage: (r.stage ?? undefined) as Stage | undefined, count: r.count, definitive: true }))
   learned.set(key, { counts, until: Date.now() + TTL_MS })
   return counts
 }

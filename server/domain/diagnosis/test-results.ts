@@ -1,0 +1,61 @@
+/**
+ * Test results of a rank request: checked against each test's own outcome words and stages, split by
+ * phase (repair and verification results are kept out of the diagnosis), and reduced to the latest
+ * outcome per test and stage, since a repeated test replaces the earlier answer rather than adding to it.
+ */
+import type { Stage, TestResult, UnitKind } from '#shared/types/diagnosis'
+import { STAGES_OF_KIND } from '#shared/schemas/diagnosis'
+import { STAGE_PHRASE } from './fact-sheet'
+import type { KnowledgeBase, TestDef, TestOutcomeDef } from './knowledge-base'
+
+export interface ResolvedTestResult {
+  test: TestDef
+  stage: Stage
+  outcome: TestOutcomeDef
+}
+
+export class RankInputError extends Error {
+  constructor(readonly issues: string[]) {
+    super(issues.join('; '))
+    this.name = 'RankInputError'
+  }
+}
+
+function resolveStage(test: TestDef, given: Stage | undefined, kind: UnitKind): Stage | string {
+  const possible = test.stages.filter((s) => STAGES_OF_KIND[kind].includes(s))
+  if (given) return possible.includes(given) ? given : `${test.slug} does not apply to the ${given} stage; allowed: ${possible.join(', ')}`
+  if (possible.length === 1 && possible[0]) return possible[0]
+  return `${test.slug} needs a stage on a ${kind} unit; allowed: ${possible.join(', ')}`
+}
+
+export interface SortedTestResults {
+  diagnosis: ResolvedTestResult[]
+  /** Results kept in the record but left out of the ranking, in words. */
+  setAside: string[]
+}
+
+const PHASE_WORDS = { repair: 'during the repair', verification: 'to verify the repair' } as const
+
+/** Checks outcome words against each test's own list; problems are returned together for one 400. */
+export function resolveTestResults(kb: Pick<KnowledgeBase, 'tests'>, kind: UnitKind, results: TestResult[] = []): SortedTestResults {
+  const issues: string[] = []
+  const latest = new Map<string, ResolvedTestResult>()
+  const setAside: string[] = []
+  results.forEach((r, i) => {
+    const test = kb.tests.find((t) => t.slug === r.test)
+    if (!test) return void issues.push(`testResults[${i}]: test "${r.test}" is not in this knowledge base`)
+    const outcome = test.outcomes.find((o) => o.slug === r.outcome)
+    if (!outcome) {
+      return void issues.push(`testResults[${i}]: Unknown outcome "${r.outcome}" for ${r.test}; allowed: ${test.outcomes.map((o) => o.slug).join(', ')}`)
+    }
+    const stage = resolveStage(test, r.stage, kind)
+    if (!STAGES_OF_KIND[kind].includes(stage as Stage)) return void issues.push(`testResults[${i}]: ${stage}`)
+    if (r.phase && r.phase !== 'diagnosis') {
+      setAside.push(`${test.title} on the ${STAGE_PHRASE[stage as Stage]} ("${outcome.label}"), done ${PHASE_WORDS[r.phase]}, is kept in the record but does not move the diagnosis.`)
+      return
+    }
+    latest.set(`${test.slug}@${stage}`, { test, stage: stage as Stage, outcome })
+  })
+  if (issues.length) throw new RankInputError(issues)
+  return { diagnosis: [...latest.values()], setAside }
+}
