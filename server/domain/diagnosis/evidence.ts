@@ -34,6 +34,9 @@ interface CompiledFinding {
   /** Graded findings: band weights per hypothesis (row-major, hypotheses × bands) and the `any` weight. */
   weights?: Float64Array
   anyW?: Float64Array
+  /** Band weights of the healthy entry, for a wrong-refrigerant stage re-derived with the refrigerant that fits. */
+  healthyWeights?: number[]
+  healthyAny?: number
 }
 
 export interface KindModel {
@@ -66,7 +69,8 @@ function compileFinding(model: KindModel, f: PreparedFinding): CompiledFinding {
       w.weights.forEach((x, b) => (weights[i * nb + b] = x))
       anyW[i] = w.any
     })
-    compiled = { weights, anyW }
+    const healthy = predictionWeights(f.likelihoods.healthy as BandPrediction, f.measure.bands)
+    compiled = { weights, anyW, healthyWeights: healthy.weights, healthyAny: healthy.any }
   } else {
     const logL = new Float64Array(H)
     model.hypotheses.forEach((h, i) => (logL[i] = Math.log(Math.max(resolveEntry(f.likelihoods, h, f.about, model.kind) as number, CATEGORICAL_FLOOR))))
@@ -107,6 +111,16 @@ export function findingLogLikelihoods(model: KindModel, f: PreparedFinding, fact
     let l = (compiled.anyW[i] as number) * any
     for (let b = 0; b < nb; b++) l += (compiled.weights[i * nb + b] as number) * (bandL[b] as number)
     out[i] = Math.log((1 - ROBUST_MIX) * l + ROBUST_MIX * any)
+  }
+  // The stage's readings were worked out with the refrigerant that fits them: with that charge the
+  // circuit is otherwise healthy under the wrong-refrigerant hypothesis.
+  if (f.about && !f.nameplateCurve && facts[`${f.about}.refrigerantMismatch`] === true && compiled.healthyWeights) {
+    const i = model.hypotheses.findIndex((h) => h.cause === 'wrong-refrigerant' && h.stage === f.about)
+    if (i >= 0) {
+      let l = (compiled.healthyAny ?? 0) * any
+      compiled.healthyWeights.forEach((w, b) => (l += w * (bandL[b] as number)))
+      out[i] = Math.log((1 - ROBUST_MIX) * l + ROBUST_MIX * any)
+    }
   }
   return out
 }
@@ -233,8 +247,9 @@ export interface TestContributions {
 }
 
 /**
- * Test outcomes as contributions. An outcome whose measurement a reading already supplies is left out
- * (the reading is the more precise of the two); if the two disagree, a warning says so.
+ * Test outcomes as contributions. An outcome whose measurement a reading already supplies, and which
+ * agrees with it, adds nothing and is left out (the reading is the more precise of the two). When the
+ * two disagree they were taken at different moments: both count, and a warning says so.
  */
 export function testContributions(model: KindModel, results: ResolvedTestResult[], applied: PreparedFinding[], facts: Facts): TestContributions {
   const out: Contribution[] = []
@@ -245,12 +260,10 @@ export function testContributions(model: KindModel, results: ResolvedTestResult[
     if (reading) {
       const band = measuredValue(reading, facts)?.band
       const agrees = !band || !same?.bands?.[r.outcome.slug] || same.bands[r.outcome.slug]?.includes(band)
-      if (!agrees) {
-        warnings.push(
-          `The ${r.test.title.toLowerCase()} on the ${STAGE_WORDS[r.stage]} was recorded as "${r.outcome.label}", but the reading says otherwise (${findingText(reading, facts)}). The reading is what counts; check which of the two is right.`,
-        )
-      }
-      continue
+      if (agrees) continue
+      warnings.push(
+        `The ${r.test.title.toLowerCase()} on the ${STAGE_WORDS[r.stage]} was recorded as "${r.outcome.label}", but the reading says otherwise (${findingText(reading, facts)}) Both count, as if taken at different moments; check which one is current.`,
+      )
     }
     const index = r.test.outcomes.indexOf(r.outcome)
     const logL = testLogLikelihoods(model, r.test, r.stage)[index]

@@ -27,11 +27,11 @@ export function hypothesesFor(causes: Pick<CauseDef, 'slug' | 'stages'>[], kind:
 
 const EXPANSION_VALVE_CAUSES: readonly Cause[] = ['expansion-valve-underfeeding', 'expansion-valve-overfeeding']
 /**
- * Default weights of expansion-valve causes are spread over all units of a class, many of them
- * capillary-fed; on a stage the record says has a valve they are this many times as likely
- * (common practice, no source).
+ * Default weights of expansion-valve causes are spread over all units of a class, most of them
+ * capillary-fed (roughly one stage in four has a valve); on a stage the record says has one they are
+ * this many times as likely (common practice, no source).
  */
-export const KNOWN_VALVE_FACTOR = 3
+export const KNOWN_VALVE_FACTOR = 4
 
 /** Prior factor the unit record sets: 0 for a valve fault on a capillary-fed stage, more on a stage known to have a valve. */
 export function unitRecordFactor(h: Hypothesis, stages: StageConfig[]): number {

@@ -154,6 +154,8 @@ export const testOutcomeSchema = z
   .object({
     slug: z.string().regex(/^[a-z0-9-]+$/, 'must be lower-case words joined by hyphens'),
     label: z.string().min(1),
+    /** The outcome settles the cause by itself (a leak found, a probe found off): the case moves to repair after it. */
+    definitive: z.boolean().optional(),
     likelihoods: tableKeysChecked(categoricalTableSchema),
   })
   .strict()
@@ -230,6 +232,12 @@ const findingParamsSchema = z
     about: z.enum(['stage', 'unit'], { error: 'about must be "stage" or "unit"' }).optional(),
     group: z.string().regex(/^[a-z{}@][a-z{}@-]*$/, 'must be lower-case words, may hold {stage}').optional(),
     measure: measureSchema.optional(),
+    /**
+     * The finding reads a pair against the nameplate refrigerant's curve. Other graded findings about a
+     * stage whose readings fit another refrigerant are worked out with that refrigerant, so under
+     * wrong-refrigerant they read as a healthy stage would; these keep their own entry.
+     */
+    nameplateCurve: z.boolean().optional(),
     likelihoods: z.union([categoricalTableSchema, gradedTableSchema]),
     /** Words a person reads: one text, or one per band of a graded finding. */
     because: z.union([z.string().min(1), z.record(bandWord, z.string().min(1))]),

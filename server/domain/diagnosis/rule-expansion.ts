@@ -29,6 +29,8 @@ export interface PreparedFinding {
   /** `equal` tests at the top level of an `all`: the finding cannot apply unless each holds (equality index). */
   requiredEquals: [string, string | number | boolean][]
   measure?: PreparedMeasure
+  /** Reads a pair against the nameplate curve (see knowledge-base.ts). */
+  nameplateCurve?: boolean
   likelihoods: LikelihoodTable
   /** Text per band of a graded finding; a single text is stored under `*`. */
   because: Record<string, string>
@@ -130,6 +132,7 @@ export function expandRule(rule: RuleDef): PreparedFinding[] {
     const about = params.about ?? (stage ? 'stage' : 'unit')
     if (about === 'stage' && stage) finding.about = stage
     if (measure) finding.measure = measure
+    if (params.nameplateCurve) finding.nameplateCurve = true
     return finding
   })
 }

@@ -2,6 +2,10 @@
  * Test results of a rank request: checked against each test's own outcome words and stages, split by
  * phase (repair and verification results are kept out of the diagnosis), and reduced to the latest
  * outcome per test and stage, since a repeated test replaces the earlier answer rather than adding to it.
+ *
+ * Results come in the order they were recorded. Where no phase is given, it follows from that order:
+ * once an outcome has settled a cause by itself (a leak found), a test that opens the system is part of
+ * the repair, and a test repeated on the same stage verifies the repair; neither moves the diagnosis.
  */
 import type { Stage, TestResult, UnitKind } from '#shared/types/diagnosis'
 import { STAGES_OF_KIND } from '#shared/schemas/diagnosis'
@@ -41,6 +45,7 @@ export function resolveTestResults(kb: Pick<KnowledgeBase, 'tests'>, kind: UnitK
   const issues: string[] = []
   const latest = new Map<string, ResolvedTestResult>()
   const setAside: string[] = []
+  let settledBy: string | undefined
   results.forEach((r, i) => {
     const test = kb.tests.find((t) => t.slug === r.test)
     if (!test) return void issues.push(`testResults[${i}]: test "${r.test}" is not in this knowledge base`)
@@ -50,11 +55,19 @@ export function resolveTestResults(kb: Pick<KnowledgeBase, 'tests'>, kind: UnitK
     }
     const stage = resolveStage(test, r.stage, kind)
     if (!STAGES_OF_KIND[kind].includes(stage as Stage)) return void issues.push(`testResults[${i}]: ${stage}`)
+    const key = `${test.slug}@${stage}`
+    const what = `${test.title} on the ${STAGE_PHRASE[stage as Stage]} ("${outcome.label}")`
     if (r.phase && r.phase !== 'diagnosis') {
-      setAside.push(`${test.title} on the ${STAGE_PHRASE[stage as Stage]} ("${outcome.label}"), done ${PHASE_WORDS[r.phase]}, is kept in the record but does not move the diagnosis.`)
+      setAside.push(`${what}, done ${PHASE_WORDS[r.phase]}, is kept in the record but does not move the diagnosis.`)
       return
     }
-    latest.set(`${test.slug}@${stage}`, { test, stage: stage as Stage, outcome })
+    if (!r.phase && settledBy && (test.opensSystem || latest.has(key))) {
+      const role = test.opensSystem ? 'part of the repair' : 'a check of the repair'
+      setAside.push(`${what}, recorded after "${settledBy}", is taken as ${role}; it is kept in the record but does not move the diagnosis.`)
+      return
+    }
+    latest.set(key, { test, stage: stage as Stage, outcome })
+    if (outcome.definitive && !settledBy) settledBy = outcome.label
   })
   if (issues.length) throw new RankInputError(issues)
   return { diagnosis: [...latest.values()], setAside }

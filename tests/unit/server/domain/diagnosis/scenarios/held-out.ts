@@ -90,19 +90,19 @@ export const HELD_OUT: ScenarioSpec[] = [
   {
     id: 'H16', title: 'Test chamber tripping in a hot lab, high-stage condenser', source: RB97_CASCADE('condenser fouling'), unit: 'chamberR404aR23', expected: { cause: 'condenser-airflow', stage: 'high' },
     symptoms: ['compressor-tripping'],
-    state: withState(healthy('chamberR404aR23', 30), { cabinet: -55, cascadeHx: -18, airOut: 50, high: { sst: -26, sct: 60, subcooling: 6, currentPct: 120 }, low: { sct: -12 } }),
+    state: withState(healthy('chamberR404aR23', 30), { cabinet: -55, cascadeHx: -18, airOut: 50, high: { sst: -26, sct: 60, subcooling: 6, currentPct: 120 }, low: { sst: -69, sct: -12 } }),
   },
   {
     id: 'H17', title: 'Cold trap high stage short of charge', source: RB97_CASCADE('refrigerant leak'), unit: 'trapR404aR1150', expected: { cause: 'refrigerant-leak', stage: 'high' },
     symptoms: ['not-cooling'],
-    state: withState(healthy('trapR404aR1150', 22), { cabinet: -75, cascadeHx: -26, high: { sst: -52, sct: 30, superheat: 20, subcooling: 0.5, currentPct: 62 }, low: { sct: -20, currentPct: 100 } }),
+    state: withState(healthy('trapR404aR1150', 22), { cabinet: -75, cascadeHx: -26, high: { sst: -52, sct: 30, superheat: 20, subcooling: 0.5, currentPct: 62 }, low: { sst: -89, sct: -20, currentPct: 100 } }),
   },
   {
     id: 'H18', title: 'R23 low stage with air in it after a repair', source: KIM('non-condensable gas'), unit: 'ultR134aR23', expected: { cause: 'non-condensables', stage: 'low' },
     symptoms: ['recently-serviced'],
     state: withState(healthy('ultR134aR23', 22), {
       cabinet: -68,
-      low: { sct: -14, subcooling: 9, currentPct: 105, standingKpa: 1.3 * standingPressureFromCharge({ designation: 'R23', ambientC: 22, volumeL: 10, chargeG: 250 }).pressureKpa },
+      low: { sct: -14, subcooling: 13, currentPct: 105, standingKpa: 1.3 * standingPressureFromCharge({ designation: 'R23', ambientC: 22, volumeL: 10, chargeG: 250 }).pressureKpa },
     }),
   },
   {
@@ -113,7 +113,7 @@ export const HELD_OUT: ScenarioSpec[] = [
   {
     id: 'H20', title: 'CO2 chamber, high-stage compressor will not start', source: CP('a compressor called to run but stopped at 0 A points to its electrics; the low stage then cannot condense'), unit: 'chamberR134aR744', expected: { cause: 'compressor-electrical', stage: 'high' },
     symptoms: ['compressor-not-starting', 'not-cooling'],
-    state: withState(healthy('chamberR134aR744', 22), { cabinet: -20, cascadeHx: 8, airOut: 22, high: stopped, low: { sct: 15, currentPct: 115 } }),
+    state: withState(healthy('chamberR134aR744', 22), { cabinet: -20, cascadeHx: 8, airOut: 22, high: stopped, low: { sst: -34, sct: 15, currentPct: 115 } }),
   },
   {
     id: 'H21', title: 'Cold trap low stage tripping at start, standing high', source: CP('an isolated expansion tank leaves the low-stage gas in a smaller volume'), unit: 'trapR507aR1150', expected: { cause: 'expansion-tank-fault', stage: 'low' },
@@ -151,7 +151,7 @@ export const HELD_OUT: ScenarioSpec[] = [
   {
     id: 'H27', title: 'ULT freezer, high-stage drier blocked', source: RB97_CASCADE('liquid-line restriction'), unit: 'ultR404aR170', expected: { cause: 'restriction', stage: 'high' },
     symptoms: ['frost-on-capillary'],
-    state: withState(healthy('ultR404aR170', 22), { cabinet: -58, cascadeHx: -20, high: { sst: -48, sct: 35, superheat: 18, subcooling: 12, currentPct: 70 }, low: { sct: -16 } }),
+    state: withState(healthy('ultR404aR170', 22), { cabinet: -58, cascadeHx: -20, high: { sst: -48, sct: 35, superheat: 18, subcooling: 12, currentPct: 70 }, low: { sst: -72, sct: -16 } }),
   },
   {
     id: 'H28', title: 'Chest freezer healthy at 1800 m, psig', source: CP('healthy readings at the design point'), unit: 'chestR290', expected: { cause: 'no-refrigeration-fault' },

@@ -107,12 +107,12 @@ export const TUNING: ScenarioSpec[] = [
   {
     id: 'T22', title: 'ULT freezer, propane high stage short of charge', source: RB97_CASCADE('refrigerant leak'), unit: 'ultR290R170', expected: { cause: 'refrigerant-leak', stage: 'high' },
     symptoms: ['not-cooling'],
-    state: withState(healthy('ultR290R170', 22), { cabinet: -55, cascadeHx: -18, high: { sst: -50, sct: 30, superheat: 22, subcooling: 0.5, currentPct: 65 }, low: { sst: -80, sct: -12, currentPct: 110 } }),
+    state: withState(healthy('ultR290R170', 22), { cabinet: -55, cascadeHx: -18, high: { sst: -50, sct: 30, superheat: 22, subcooling: 0.5, currentPct: 65 }, low: { sst: -69, sct: -12, currentPct: 110 } }),
   },
   {
     id: 'T23', title: 'ULT freezer in a hot corner, high-stage condenser choked', source: RB97_CASCADE('condenser fouling'), unit: 'ultR507aR508b', expected: { cause: 'condenser-airflow', stage: 'high' },
     symptoms: ['slow-pulldown'],
-    state: withState(healthy('ultR507aR508b', 24), { cabinet: -62, cascadeHx: -20, airOut: 42, high: { sst: -30, sct: 58, subcooling: 5, currentPct: 118 }, low: { sct: -14, currentPct: 100 } }),
+    state: withState(healthy('ultR507aR508b', 24), { cabinet: -62, cascadeHx: -20, airOut: 42, high: { sst: -30, sct: 58, subcooling: 5, currentPct: 118 }, low: { sst: -76, sct: -14, currentPct: 100 } }),
   },
   {
     id: 'T24', title: 'ULT freezer, R23 low-stage capillary partly blocked', source: CP('a blocked low stage: suction low, subcooling high, standing pressure as expected'), unit: 'ultR134aR23', expected: { cause: 'restriction', stage: 'low' },
@@ -166,13 +166,13 @@ export const TUNING: ScenarioSpec[] = [
     symptoms: ['line-tap-valve-present'],
     state: withState(healthy('ultR507aR508b', 22), {
       cabinet: -70,
-      low: { sct: -15, subcooling: 8, currentPct: 105, standingKpa: 1.25 * standingPressureFromCharge({ designation: 'R508B', ambientC: 22, volumeL: 11, chargeG: 300 }).pressureKpa },
+      low: { sct: -15, subcooling: 12, currentPct: 105, standingKpa: 1.25 * standingPressureFromCharge({ designation: 'R508B', ambientC: 22, volumeL: 11, chargeG: 300 }).pressureKpa },
     }),
   },
   {
     id: 'T34', title: 'ULT freezer, worn high-stage compressor', source: RB97_CASCADE('compressor valve leakage'), unit: 'ultR134aR23', expected: { cause: 'compressor-inefficient', stage: 'high' },
     symptoms: ['slow-pulldown'],
-    state: withState(healthy('ultR134aR23', 23), { cabinet: -58, cascadeHx: -17, high: { sst: -25, sct: 31, currentPct: 55, dischargeSuperheat: 80 }, low: { sct: -13 } }),
+    state: withState(healthy('ultR134aR23', 23), { cabinet: -58, cascadeHx: -17, high: { sst: -25, sct: 31, currentPct: 55, dischargeSuperheat: 80 }, low: { sst: -72, sct: -13 } }),
   },
   {
     id: 'T35', title: 'Ethane stage charged with ethylene by mistake', source: CP('an evaporator colder than the nameplate refrigerant can boil at that pressure, on another refrigerant’s curve'), unit: 'ultR404aR170', expected: { cause: 'wrong-refrigerant', stage: 'low' },
@@ -182,7 +182,7 @@ export const TUNING: ScenarioSpec[] = [
   {
     id: 'T36', title: 'Cold trap high-stage expansion valve underfeeding', source: KIM('expansion-device restriction'), unit: 'trapR507aR1150', expected: { cause: 'expansion-valve-underfeeding', stage: 'high' },
     symptoms: ['slow-pulldown'], unitPatch: txv('high'),
-    state: withState(healthy('trapR507aR1150', 22), { cabinet: -85, cascadeHx: -33, high: { sst: -55, sct: 34, superheat: 20, subcooling: 8, currentPct: 72 }, low: { sct: -30 } }),
+    state: withState(healthy('trapR507aR1150', 22), { cabinet: -85, cascadeHx: -33, high: { sst: -55, sct: 34, superheat: 20, subcooling: 8, currentPct: 72 }, low: { sst: -99, sct: -30 } }),
   },
   // ------------------------------------------------------------ more variety
   {
@@ -203,7 +203,7 @@ export const TUNING: ScenarioSpec[] = [
   {
     id: 'T44', title: 'ULT freezer high-stage condenser matted with dust, bar gauges', source: RB97_CASCADE('condenser fouling'), unit: 'ultR404aR170', expected: { cause: 'condenser-airflow', stage: 'high' },
     symptoms: ['slow-pulldown'], show: { pressure: 'barg' },
-    state: withState(healthy('ultR404aR170', 25), { cabinet: -66, cascadeHx: -22, airOut: 43, high: { sst: -29, sct: 57, subcooling: 5, currentPct: 120 }, low: { sct: -17, currentPct: 100 } }),
+    state: withState(healthy('ultR404aR170', 25), { cabinet: -66, cascadeHx: -22, airOut: 43, high: { sst: -29, sct: 57, subcooling: 5, currentPct: 120 }, low: { sst: -80, sct: -17, currentPct: 100 } }),
   },
   {
     id: 'T45', title: 'Cold trap ethylene stage short of charge, kPag', source: CP('a starved low stage: suction low, superheat high, head and current low'), unit: 'trapR404aR1150', expected: { cause: 'refrigerant-leak', stage: 'low' },
@@ -222,7 +222,7 @@ export const TUNING: ScenarioSpec[] = [
   {
     id: 'T48', title: 'Chest freezer compressor drawing locked-rotor current and tripping', source: CP('a current far above rated with normal pressures points to the motor or its start gear'), unit: 'chestR290', expected: { cause: 'compressor-electrical', stage: 'single' },
     symptoms: ['compressor-tripping'],
-    state: withState(healthy('chestR290'), { cabinet: -10, single: { currentPct: 170 } }),
+    state: withState(healthy('chestR290'), { cabinet: -10, single: { sst: -22, sct: 40, currentPct: 170 } }),
   },
   {
     id: 'T49', title: 'Cold room with air in the condenser, at altitude, psig', source: KIM('non-condensable gas'), unit: 'coldRoomR404a', expected: { cause: 'non-condensables', stage: 'single' },
@@ -252,7 +252,7 @@ export const TUNING: ScenarioSpec[] = [
   {
     id: 'T54', title: 'ULT freezer, propane high stage with air after a repair', source: KIM('non-condensable gas'), unit: 'ultR290R1150', expected: { cause: 'non-condensables', stage: 'high' },
     symptoms: ['recently-serviced'],
-    state: withState(healthy('ultR290R1150', 22), { cabinet: -68, cascadeHx: -27, high: { sct: 52, subcooling: 10, currentPct: 112 }, low: { sct: -24 } }),
+    state: withState(healthy('ultR290R1150', 22), { cabinet: -68, cascadeHx: -27, high: { sct: 52, subcooling: 10, currentPct: 112 }, low: { sst: -82, sct: -24 } }),
   },
   {
     id: 'T55', title: 'ULT freezer, low stage off on its overload', source: CP('a compressor called to run but stopped at 0 A points to its electrics'), unit: 'ultR404aR170', expected: { cause: 'compressor-electrical', stage: 'low' },
@@ -271,7 +271,7 @@ export const TUNING: ScenarioSpec[] = [
   {
     id: 'T58', title: 'Cold trap high stage losing charge', source: RB97_CASCADE('refrigerant leak'), unit: 'trapR507aR1150', expected: { cause: 'refrigerant-leak', stage: 'high' },
     symptoms: ['warming-over-days'],
-    state: withState(healthy('trapR507aR1150', 22), { cabinet: -80, cascadeHx: -30, high: { sst: -55, sct: 31, superheat: 18, subcooling: 0.5, currentPct: 66 }, low: { sct: -25 } }),
+    state: withState(healthy('trapR507aR1150', 22), { cabinet: -80, cascadeHx: -30, high: { sst: -55, sct: 31, superheat: 18, subcooling: 0.5, currentPct: 66 }, low: { sst: -94, sct: -25 } }),
   },
   {
     id: 'T59', title: 'R23 low stage blocking with ice after a repair', source: CP('moisture freezing at the low-stage capillary'), unit: 'ultR134aR23', expected: { cause: 'moisture-freeze', stage: 'low' },
@@ -286,7 +286,7 @@ export const TUNING: ScenarioSpec[] = [
   {
     id: 'T61', title: 'CO2 chamber, R134a high stage short of charge', source: RB97_CASCADE('refrigerant leak'), unit: 'chamberR134aR744', expected: { cause: 'refrigerant-leak', stage: 'high' },
     symptoms: ['not-cooling'],
-    state: withState(healthy('chamberR134aR744', 22), { cabinet: -25, cascadeHx: 4, high: { sst: -22, sct: 33, superheat: 20, subcooling: 0.5, currentPct: 65 }, low: { sct: 8, currentPct: 105 } }),
+    state: withState(healthy('chamberR134aR744', 22), { cabinet: -25, cascadeHx: 4, high: { sst: -22, sct: 33, superheat: 20, subcooling: 0.5, currentPct: 65 }, low: { sst: -39, sct: 8, currentPct: 105 } }),
   },
   {
     id: 'T62', title: 'Cold room charged with R22 instead of R404A', source: CP('a standing pressure on another refrigerant’s saturation curve identifies the charge'), unit: 'coldRoomR404a', expected: { cause: 'wrong-refrigerant', stage: 'single' },
