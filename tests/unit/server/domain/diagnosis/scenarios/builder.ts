@@ -1,21 +1,15 @@
 /**
- * Builds rank requests for the scenario suite from the state a technician would describe: saturated
- * temperatures, superheat, subcooling, current as % of rated, the share of the charge left, the
- * cabinet and the room. Pressures come from our property module's saturation curves and standing-
- * charge solver, so every scenario is physically consistent; then they are shown in the units the
- * scenario asks for (psig, bar, MPa…, gauge readings against the site's own atmosphere), rounded the
- * way a gauge is read, and, if asked, disturbed by instrument noise from a seeded generator.
+ * Builds rank requests for the scenario suite from the state a technician would describe (saturated
+ * temperatures, superheat, subcooling, current, the share of the charge left, the cabinet and the room);
+ * the readings come from the domain's operating-state module, so every scenario is physically consistent
+ * and shown in the units, altitude and noise it asks for.
  */
-import {
-  fromKpaAbs,
-  atmosphericPressureAtAltitude,
-  saturationPressure,
-  standingPressureFromCharge,
-  type Designation,
-  type PressureUnit,
-} from '#shared/utils/properties'
-import type { Cause, Quantity, RankRequest, Reading, Stage, StageConfig, Symptom, TestResult, UnitKind } from '#shared/types/diagnosis'
+import type { Designation } from '#shared/utils/properties'
+import type { Cause, RankRequest, Stage, StageConfig, Symptom, TestResult, UnitKind } from '#shared/types/diagnosis'
 import type { EquipmentClass } from '#shared/types/equipment'
+import { readingsForState, type Presentation, type UnitState } from '#server/domain/diagnosis/operating-state'
+
+export type { Presentation, StageState, UnitState } from '#server/domain/diagnosis/operating-state'
 
 // ------------------------------------------------------------------ units of the suite (invented)
 
@@ -62,52 +56,6 @@ export const UNITS = {
 } satisfies Record<string, UnitSpec>
 export type UnitName = keyof typeof UNITS
 
-// ------------------------------------------------------------------ state
-
-export interface StageState {
-  /** Saturated suction and condensing temperatures, °C, of the refrigerant actually in the stage. */
-  sst?: number
-  sct?: number
-  superheat?: number
-  subcooling?: number
-  dischargeSuperheat?: number
-  currentPct?: number
-  /** Evaporator probe, °C. */
-  evaporator?: number
-  /** Reported running state; readings given without it imply a running compressor. */
-  running?: boolean
-  /** Standing pressure: share of the nameplate charge left, or a pressure in kPa abs. */
-  standingFraction?: number
-  standingKpa?: number
-  /** Refrigerant actually in the stage when it is not the nameplate one. */
-  actual?: Designation
-  /** A mixed charge: the other refrigerant and its mole share (Raoult's law for the pressure, an approximation). */
-  mixedWith?: { designation: Designation; share: number }
-  /** Readings not taken. */
-  omit?: Quantity[]
-}
-
-export interface UnitState {
-  cabinet?: number
-  setpoint?: number | null
-  ambient?: number
-  airIn?: number
-  airOut?: number
-  cascadeHx?: number
-  runtime?: number
-  high?: StageState
-  low?: StageState
-  single?: StageState
-}
-
-export interface Presentation {
-  pressure?: PressureUnit
-  temperature?: 'C' | 'F' | 'K'
-  altitudeM?: number
-  /** Seed for instrument noise (gauge ±1 %, probes ±0.5 K, clamp ±3 %); none when absent. */
-  noiseSeed?: number
-}
-
 export interface Scenario {
   id: string
   title: string
@@ -132,130 +80,17 @@ export interface ScenarioSpec {
   unitPatch?: (unit: UnitSpec) => UnitSpec
 }
 
-// ------------------------------------------------------------------ noise
-
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6d2b79f5) | 0
-    let t = Math.imul(a ^ (a >>> 15), 1 | a)
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
-
-function gaussian(rand: () => number): number {
-  const u = Math.max(rand(), 1e-12)
-  const v = rand()
-  return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * v)
-}
-
 // ------------------------------------------------------------------ building
-
-const PRESSURE_STEP: Record<PressureUnit, number> = { kPa: 1, kPag: 1, bar: 0.05, barg: 0.05, psia: 0.5, psig: 0.5, MPa: 0.005 }
-
-const roundTo = (x: number, step: number) => Math.round(Math.round(x / step) * step * 1e6) / 1e6
-
-function mixturePressure(base: Designation, mix: StageState['mixedWith'], tC: number, side: 'dew' | 'bubble'): number {
-  const own = side === 'dew' ? saturationPressure(base, tC).dewKpa : saturationPressure(base, tC).bubbleKpa
-  if (!mix) return own
-  const other = saturationPressure(mix.designation, tC)
-  return (1 - mix.share) * own + mix.share * (side === 'dew' ? other.dewKpa : other.bubbleKpa)
-}
 
 export function buildScenario(spec: ScenarioSpec): Scenario {
   const unit = spec.unitPatch ? spec.unitPatch(UNITS[spec.unit]) : UNITS[spec.unit]
-  const show = spec.show ?? {}
-  const pUnit = show.pressure ?? 'kPa'
-  const tUnit = show.temperature ?? 'C'
-  const atm = show.altitudeM !== undefined ? atmosphericPressureAtAltitude(show.altitudeM) : 101.325
-  const rand = show.noiseSeed !== undefined ? mulberry32(show.noiseSeed) : undefined
-  const noisy = (x: number, sd: number) => (rand ? x + gaussian(rand) * sd : x)
-  const readings: Reading[] = []
-  const temp = (quantity: Quantity, c: number, stage?: Stage, sd = 0.5) => {
-    const v = noisy(c, sd)
-    const shown = tUnit === 'C' ? roundTo(v, 0.1) : tUnit === 'K' ? roundTo(v + 273.15, 0.1) : roundTo((v * 9) / 5 + 32, 1)
-    readings.push(stage ? { quantity, stage, value: shown, unit: tUnit } : { quantity, value: shown, unit: tUnit })
-  }
-  const pressure = (quantity: Quantity, stage: Stage, kpa: number) => {
-    const v = noisy(kpa, 0.01 * kpa)
-    readings.push({ quantity, stage, value: roundTo(fromKpaAbs(v, pUnit, atm), PRESSURE_STEP[pUnit]), unit: pUnit })
-  }
-  const s = spec.state
-  if (s.ambient !== undefined) temp('ambientTemperature', s.ambient)
-  if (s.cabinet !== undefined) temp('cabinetTemperature', s.cabinet)
-  if (s.setpoint !== null) temp('setpointTemperature', s.setpoint ?? unit.design.cabinetC, undefined, 0)
-  if (s.cascadeHx !== undefined) temp('cascadeHxTemperature', s.cascadeHx)
-  if (s.airIn !== undefined) temp('condenserAirInTemperature', s.airIn)
-  if (s.airOut !== undefined) temp('condenserAirOutTemperature', s.airOut)
-  if (s.runtime !== undefined) readings.push({ quantity: 'runtime', value: s.runtime, unit: 'min' })
-  for (const config of unit.stages) {
-    const st = s[config.stage]
-    if (!st) continue
-    const omit = new Set(st.omit ?? [])
-    const d = st.actual ?? config.refrigerant
-    const take = (q: Quantity) => !omit.has(q)
-    if (st.running !== undefined && take('compressorRunning')) readings.push({ quantity: 'compressorRunning', stage: config.stage, value: st.running, unit: 'bool' })
-    if (st.sst !== undefined) {
-      if (take('suctionPressure')) pressure('suctionPressure', config.stage, mixturePressure(d, st.mixedWith, st.sst, 'dew'))
-      if (st.superheat !== undefined && take('suctionTemperature')) temp('suctionTemperature', st.sst + st.superheat, config.stage, 0.7)
-    }
-    if (st.sct !== undefined) {
-      if (take('dischargePressure')) pressure('dischargePressure', config.stage, mixturePressure(d, st.mixedWith, st.sct, 'dew'))
-      if (st.subcooling !== undefined && take('liquidLineTemperature')) {
-        const pd = mixturePressure(d, st.mixedWith, st.sct, 'dew')
-        const bubbleC = bubbleAt(d, pd)
-        temp('liquidLineTemperature', bubbleC - st.subcooling, config.stage, 0.7)
-      }
-      if (st.dischargeSuperheat !== undefined && take('dischargeTemperature')) temp('dischargeTemperature', st.sct + st.dischargeSuperheat, config.stage, 1)
-    }
-    if (st.evaporator !== undefined && take('evaporatorTemperature')) temp('evaporatorTemperature', st.evaporator, config.stage, 0.7)
-    if (st.currentPct !== undefined && take('compressorCurrent') && config.ratedCurrentA) {
-      const amps = noisy((config.ratedCurrentA * st.currentPct) / 100, (0.03 * config.ratedCurrentA * st.currentPct) / 100)
-      readings.push({ quantity: 'compressorCurrent', stage: config.stage, value: roundTo(Math.max(0, amps), 0.1), unit: 'A' })
-    }
-    const standing = standingKpa(config, st, s.ambient)
-    if (standing !== undefined && take('standingPressure')) pressure('standingPressure', config.stage, standing)
-  }
   const request: RankRequest = {
     unit: { kind: unit.kind, stages: unit.stages.map((x) => ({ ...x })), design: { ...unit.design } },
     symptoms: spec.symptoms ?? [],
-    readings,
+    readings: readingsForState(unit, spec.state, spec.show),
   }
   if (unit.kind !== 'cascade') delete request.unit.design?.cascadeHxC
-  if (show.altitudeM !== undefined) request.site = { altitudeM: show.altitudeM }
+  if (spec.show?.altitudeM !== undefined) request.site = { altitudeM: spec.show.altitudeM }
   if (spec.tests) request.testResults = spec.tests
   return { id: spec.id, title: spec.title, source: spec.source, expected: spec.expected, equipmentClass: unit.equipmentClass, request }
-}
-
-/** Bubble temperature at a pressure, by bisection on the saturation curve. */
-function bubbleAt(d: Designation, pKpa: number): number {
-  let lo = -150
-  let hi = 80
-  for (let i = 0; i < 60; i++) {
-    const mid = (lo + hi) / 2
-    let p: number
-    try {
-      p = saturationPressure(d, mid).bubbleKpa
-    } catch {
-      p = mid < 0 ? 0 : Infinity
-    }
-    if (p < pKpa) lo = mid
-    else hi = mid
-  }
-  return (lo + hi) / 2
-}
-
-function standingKpa(config: StageConfig & { refrigerant: Designation }, st: StageState, ambient?: number): number | undefined {
-  if (st.standingKpa !== undefined) return st.standingKpa
-  if (st.standingFraction === undefined || ambient === undefined) return undefined
-  const d = st.actual ?? config.refrigerant
-  if (config.chargeG !== undefined && config.volumeL !== undefined) {
-    const p = standingPressureFromCharge({ designation: d, ambientC: ambient, volumeL: config.volumeL, chargeG: config.chargeG * st.standingFraction }).pressureKpa
-    if (!st.mixedWith) return p
-    const other = standingPressureFromCharge({ designation: st.mixedWith.designation, ambientC: ambient, volumeL: config.volumeL, chargeG: config.chargeG * st.standingFraction })
-    return (1 - st.mixedWith.share) * p + st.mixedWith.share * other.pressureKpa
-  }
-  // A two-phase charge stands at its saturation pressure at room temperature while liquid is left.
-  return mixturePressure(d, st.mixedWith, ambient, 'bubble')
 }

@@ -11,6 +11,39 @@ import { CP, KIM, RB97, RB97_CASCADE } from './sources'
 const txv = (stage: 'high' | 'low' | 'single'): ScenarioSpec['unitPatch'] =>
   (unit) => ({ ...unit, stages: unit.stages.map((s) => (s.stage === stage ? { ...s, meteringDevice: 'expansion-valve' as const } : s)) })
 
+const earlier = (id: string, title: string, source: string, cause: ScenarioSpec['expected']['cause'], c: { sst: number; sct: number; superheat: number; subcooling: number; currentPct: number; airOut: number; cabinet: number; dischargeSuperheat?: number; evaporator?: number }): ScenarioSpec => ({
+  id,
+  title,
+  source,
+  unit: 'freezerR290',
+  expected: { cause, stage: 'single' },
+  state: withState(healthy('freezerR290', 25), {
+    cabinet: c.cabinet,
+    airOut: c.airOut,
+    single: { sst: c.sst, sct: c.sct, superheat: c.superheat, subcooling: c.subcooling, currentPct: c.currentPct, dischargeSuperheat: c.dischargeSuperheat ?? 45, ...(c.evaporator !== undefined ? { evaporator: c.evaporator } : {}) },
+  }),
+})
+
+const EARLIER_CHECKS: ScenarioSpec[] = [
+  earlier('H34', 'Freezer leak (earlier check)', RB97('refrigerant leak'), 'refrigerant-leak', { sst: -38, sct: 33, superheat: 22, subcooling: 0.5, currentPct: 70, airOut: 31, cabinet: -8 }),
+  earlier('H35', 'Freezer overcharge (earlier check)', RB97('overcharge'), 'overcharge', { sst: -26, sct: 50, superheat: 1.5, subcooling: 12, currentPct: 118, airOut: 34, cabinet: -14 }),
+  earlier('H36', 'Freezer restriction (earlier check)', RB97('liquid-line restriction'), 'restriction', { sst: -40, sct: 36, superheat: 18, subcooling: 12, currentPct: 65, airOut: 31, cabinet: -8 }),
+  earlier('H37', 'Freezer condenser airflow (earlier check)', RB97('condenser fouling'), 'condenser-airflow', { sst: -28, sct: 52, superheat: 7, subcooling: 6, currentPct: 120, airOut: 42, cabinet: -12 }),
+  earlier('H38', 'Freezer evaporator airflow (earlier check)', RB97('evaporator fouling'), 'evaporator-airflow', { sst: -40, sct: 37, superheat: 1, subcooling: 5, currentPct: 85, airOut: 33, cabinet: -5, evaporator: -39 }),
+  earlier('H39', 'Freezer compressor valves leaking (earlier check)', RB97('compressor valve leakage'), 'compressor-inefficient', { sst: -22, sct: 32, superheat: 9, subcooling: 4, currentPct: 50, airOut: 30, cabinet: -6, dischargeSuperheat: 85 }),
+  earlier('H40', 'Freezer with non-condensables (earlier check)', CP('head high with condensing far above the air while the air-side rise is normal'), 'non-condensables', { sst: -29, sct: 50, superheat: 8, subcooling: 12, currentPct: 112, airOut: 33, cabinet: -14 }),
+  {
+    id: 'H41', title: 'Cascade, low standing at 40 % (earlier check)', source: CP('a gas-charged low stage stands in proportion to its charge'), unit: 'ultR290R1150', expected: { cause: 'refrigerant-leak', stage: 'low' },
+    symptoms: ['not-cooling'],
+    state: { ambient: 21, cabinet: -45, cascadeHx: -36, setpoint: -80, high: { running: true }, low: { running: true, standingFraction: 0.4 } },
+  },
+  {
+    id: 'H42', title: 'R134a unit standing at the propane pressure (earlier check)', source: CP('a standing pressure on another refrigerant’s saturation curve identifies the charge'), unit: 'fridgeR134a', expected: { cause: 'wrong-refrigerant', stage: 'single' },
+    symptoms: ['not-cooling'],
+    state: { ambient: 22, single: { actual: 'R290', standingFraction: 1 } },
+  },
+]
+
 export const HELD_OUT: ScenarioSpec[] = [
   {
     id: 'H01', title: 'Vaccine fridge slowly losing charge, psig and °F', source: RB97('refrigerant leak'), unit: 'fridgeR134a', expected: { cause: 'refrigerant-leak', stage: 'single' },
@@ -183,4 +216,7 @@ export const HELD_OUT: ScenarioSpec[] = [
     symptoms: ['not-cooling'],
     state: withState(healthy('ultR507aR508b', 23), { cabinet: -79.5, low: { standingFraction: 1 } }),
   },
+
+  // The project's earlier trade checks (written before this model), kept here as part of the held-out part.
+  ...EARLIER_CHECKS,
 ]
