@@ -7,7 +7,9 @@
  * reading it waits for is reported instead); (2) an equality index on the `equal` tests directly under
  * the top-level `all` (symptoms, unit kind, running state); (3) a compiled screen of the whole
  * condition tree with the same operator semantics as the engine, so the engine only confirms the
- * findings that will apply instead of evaluating every rule of the version.
+ * findings that will apply instead of evaluating every rule of the version. A finding whose conditions
+ * are nothing but those equality tests (or empty) is settled by the index alone: handing it to the
+ * engine would only repeat the comparison.
  */
 import { Engine, Rule, type EngineResult } from 'json-rules-engine'
 import { isStageQuantity, type Quantity, type Stage, type UnitKind } from '#shared/types/diagnosis'
@@ -104,6 +106,8 @@ export interface PreparedKnowledgeBase {
   engine: SubsetEngine
   compiled: Rule[]
   screens: Screen[]
+  /** Findings whose whole condition tree is the equality index's tests: no engine run needed. */
+  indexOnly: boolean[]
   source: RuleDef[]
   /** Per-kind structures of the evidence model, built on first use (evidence.ts). */
   models: Map<UnitKind, unknown>
@@ -125,12 +129,19 @@ export function prepareKnowledgeBase(kb: Pick<KnowledgeBase, 'version' | 'rules'
     engine,
     compiled,
     screens: findings.map((r) => compileScreen(r.conditions)),
+    indexOnly: findings.map((r) => settledByIndex(r.conditions)),
     source: kb.rules,
     models: new Map(),
   }
   if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value ?? '')
   cache.set(key, prepared)
   return prepared
+}
+
+/** True when a condition tree holds only `equal` tests under nested `all`s: exactly what the equality index checks. */
+function settledByIndex(c: NestedCondition): boolean {
+  if ('all' in c) return c.all.every((x) => ('fact' in x ? x.operator === 'equal' && !Array.isArray(x.value) : 'all' in x && settledByIndex(x)))
+  return false
 }
 
 export function clearPreparedCache(): void {
@@ -158,17 +169,19 @@ function equalsHold(finding: PreparedFinding, facts: Facts): boolean {
 
 export async function runFindings(prepared: PreparedKnowledgeBase, facts: Facts): Promise<FindingRun> {
   const selected: Rule[] = []
+  const settled: PreparedFinding[] = []
   const waiting: FindingRun['waiting'] = []
   prepared.findings.forEach((finding, i) => {
     const missing = missingFacts(finding, facts)
     if (missing.length) waiting.push({ finding, missing })
-    else if (equalsHold(finding, facts) && (prepared.screens[i] as Screen)(facts)) selected.push(prepared.compiled[i] as Rule)
+    else if (!equalsHold(finding, facts)) return
+    else if (prepared.indexOnly[i]) settled.push(finding)
+    else if ((prepared.screens[i] as Screen)(facts)) selected.push(prepared.compiled[i] as Rule)
   })
   const result = selected.length ? await prepared.engine.runSubset(facts, selected) : { events: [] }
-  const applied = result.events.flatMap((e) => {
-    const finding = prepared.byId.get(String(e.params?.id))
-    return finding ? [finding] : []
-  })
+  const confirmed = new Set(result.events.map((e) => String(e.params?.id)))
+  // Keep authoring order, whichever path decided a finding.
+  const applied = prepared.findings.filter((f) => confirmed.has(f.id) || settled.includes(f))
   return { applied, waiting, evaluated: selected.length }
 }
 
@@ -197,13 +210,18 @@ export interface WaitingReading {
   rulesWaiting: number
 }
 
+const readingKeys = new Map<string, string[]>()
+
 /** Reading keys (`quantity` or `stage:quantity`) a fact is built from; empty if no reading can supply it. */
 function readingsFor(fact: string, kind: UnitKind, stages: Set<Stage>): string[] {
+  const memo = `${fact}|${kind}|${[...stages].join(',')}`
+  const hit = readingKeys.get(memo)
+  if (hit) return hit
   const spec = FACT_SPECS.get(fact)
-  if (!spec) return []
-  const where = spec.stage ?? (spec.needsStage === 'cabinet' ? (kind === 'cascade' ? 'low' : 'single') : spec.needsStage)
-  if (where && !stages.has(where)) return []
-  return spec.needs.map((q) => (isStageQuantity(q) && where ? `${where}:${q}` : q))
+  const where = spec?.stage ?? (spec?.needsStage === 'cabinet' ? (kind === 'cascade' ? 'low' : 'single') : spec?.needsStage)
+  const keys = !spec || (where && !stages.has(where)) ? [] : spec.needs.map((q) => (isStageQuantity(q) && where ? `${where}:${q}` : q))
+  readingKeys.set(memo, keys)
+  return keys
 }
 
 /** Readings that, if measured, would let waiting findings apply; ranked by how many wait for them. */

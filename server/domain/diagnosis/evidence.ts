@@ -43,7 +43,8 @@ export interface KindModel {
   kind: UnitKind
   hypotheses: Hypothesis[]
   findings: Map<string, CompiledFinding>
-  tests: Map<string, Float64Array[]>
+  /** Per test and stage: log P(outcome | h) rows, and the same as probabilities. */
+  tests: Map<string, { logs: Float64Array[]; probs: Float64Array[] }>
 }
 
 export function modelFor(prepared: PreparedKnowledgeBase, causes: CauseDef[], kind: UnitKind): KindModel {
@@ -125,18 +126,15 @@ export function findingLogLikelihoods(model: KindModel, f: PreparedFinding, fact
   return out
 }
 
-/** log P(outcome | h) for each outcome of a test done on a stage. */
-export function testLogLikelihoods(model: KindModel, test: TestDef, stage: ResolvedTestResult['stage']): Float64Array[] {
+/** log P(outcome | h) and P(outcome | h) for each outcome of a test done on a stage, built once per version. */
+export function testLikelihoods(model: KindModel, test: TestDef, stage: ResolvedTestResult['stage']): { logs: Float64Array[]; probs: Float64Array[] } {
   const key = `${test.slug}@${stage}`
   const hit = model.tests.get(key)
   if (hit) return hit
-  const rows = test.outcomes.map((o) => {
-    const row = new Float64Array(model.hypotheses.length)
-    model.hypotheses.forEach((h, i) => (row[i] = Math.log(Math.max(resolveEntry(o.likelihoods, h, stage, model.kind) ?? 0, CATEGORICAL_FLOOR))))
-    return row
-  })
-  model.tests.set(key, rows)
-  return rows
+  const probs = test.outcomes.map((o) => Float64Array.from(model.hypotheses, (h) => Math.max(resolveEntry(o.likelihoods, h, stage, model.kind) ?? 0, CATEGORICAL_FLOOR)))
+  const entry = { probs, logs: probs.map((row) => row.map(Math.log)) }
+  model.tests.set(key, entry)
+  return entry
 }
 
 // ------------------------------------------------------------------ combination
@@ -266,7 +264,7 @@ export function testContributions(model: KindModel, results: ResolvedTestResult[
       )
     }
     const index = r.test.outcomes.indexOf(r.outcome)
-    const logL = testLogLikelihoods(model, r.test, r.stage)[index]
+    const logL = testLikelihoods(model, r.test, r.stage).logs[index]
     if (!logL) continue
     out.push({
       id: `test:${r.test.slug}@${r.stage}`,

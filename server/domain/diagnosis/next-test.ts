@@ -13,7 +13,7 @@
 import type { HypothesisRef, ProposedTest, Stage, UnitKind } from '#shared/types/diagnosis'
 import { STAGES_OF_KIND } from '#shared/schemas/diagnosis'
 import type { KindModel } from './evidence'
-import { testLogLikelihoods } from './evidence'
+import { testLikelihoods } from './evidence'
 import type { Hypothesis } from './hypotheses'
 import type { CauseDef, KnowledgeBase, TestDef } from './knowledge-base'
 import type { ResolvedTestResult } from './test-results'
@@ -43,19 +43,29 @@ export function testCostMinutes(test: Pick<TestDef, 'minutes' | 'opensSystem' | 
 interface Gain {
   gain: number
   /** P(o | h), rows = outcomes. */
-  likelihoods: number[][]
+  likelihoods: Float64Array[]
 }
 
-function expectedGain(rows: Float64Array[], p: number[], hNow: number): Gain {
-  const likelihoods = rows.map((row) => Array.from(row, Math.exp))
-  const joints = likelihoods.map((row) => row.map((l, i) => l * (p[i] ?? 0)))
-  const outcomeMass = joints.map((j) => j.reduce((a, b) => a + b, 0))
+function expectedGain(likelihoods: Float64Array[], p: number[], hNow: number): Gain {
+  const H = p.length
+  const outcomeMass = new Float64Array(likelihoods.length)
+  likelihoods.forEach((row, o) => {
+    let m = 0
+    for (let i = 0; i < H; i++) m += (row[i] as number) * (p[i] as number)
+    outcomeMass[o] = m
+  })
   // Floors make Σ_o P(o | h) differ from 1 by a hair, so P(o) is normalised over the outcomes.
   const total = outcomeMass.reduce((a, b) => a + b, 0) || 1
   let after = 0
-  joints.forEach((joint, o) => {
-    const mass = outcomeMass[o] ?? 0
-    if (mass > 0) after += (mass / total) * entropyBits(joint.map((x) => x / mass))
+  likelihoods.forEach((row, o) => {
+    const mass = outcomeMass[o] as number
+    if (mass <= 0) return
+    let h = 0
+    for (let i = 0; i < H; i++) {
+      const q = ((row[i] as number) * (p[i] as number)) / mass
+      if (q > 0) h -= q * Math.log2(q)
+    }
+    after += (mass / total) * h
   })
   return { gain: Math.max(0, hNow - after), likelihoods }
 }
@@ -132,7 +142,7 @@ export function proposeTests({ kb, model, kind, posterior, done, readingsPresent
   for (const test of kb.tests) {
     for (const stage of test.stages.filter((s) => STAGES_OF_KIND[kind].includes(s))) {
       if (doneKeys.has(`${test.slug}@${stage}`) || (test.answeredBy && readingsPresent.has(`${stage}:${test.answeredBy}`))) continue
-      const g = expectedGain(testLogLikelihoods(model, test, stage), posterior, hNow)
+      const g = expectedGain(testLikelihoods(model, test, stage).probs, posterior, hNow)
       if (g.gain < MIN_GAIN_BITS) continue
       const value = valueInWords(g, model.hypotheses, posterior, shortNames)
       out.push({
