@@ -117,7 +117,7 @@ function runningState(ctx: StageContext): void {
     if (reported === false) sheet.warn(`${lead}: reported stopped, yet the compressor draws ${amps.toFixed(1)} A; it is treated as running.`)
   } else if (reported !== undefined) {
     running = reported
-  } else if (pumping !== undefined) {
+  } else if (pumping !== undefined && pumping >= 0.95) {
     running = pumping >= 1.5 ? true : pumping < 1.15 ? false : undefined
   } else if (RUNNING_READINGS.some((q) => readingValue(ctx.readings, q, stage))) {
     // Suction and discharge readings are taken with the compressor running unless the technician says otherwise.
@@ -196,8 +196,10 @@ function saturationFacts(ctx: StageContext, d: props.Designation): void {
   const td = sheet.num(f('dischargeTempC'))
   const tl = sheet.num(f('liquidLineTempC'))
   const skip = 'The value is not worked out.'
-  if (ps !== undefined && pd !== undefined && ps >= pd && sheet.bool(f('running')) === true) {
-    sheet.warn(`${lead}: the suction pressure is not below the discharge pressure while the compressor runs; the gauges may be swapped or read at different moments. Both pressures are left out.`)
+  // The discharge side is never below the suction side; a running compressor keeps it well above.
+  const reversed = ps !== undefined && pd !== undefined && (ps > pd * 1.05 + 20 || (ps >= pd && sheet.bool(f('running')) === true))
+  if (reversed) {
+    sheet.warn(`${lead}: the suction pressure is not below the discharge pressure; the gauges may be swapped or read at different moments. Both pressures are left out.`)
     sheet.drop(f('suctionPressureKpa'))
     sheet.drop(f('dischargePressureKpa'))
     return saturationFacts(ctx, d)
