@@ -10,7 +10,7 @@
  * its uncertainty into a likelihood (likelihood.ts). Stage roles are expanded in rule-expansion.ts.
  */
 import { z } from 'zod'
-import { CAUSES, STAGES, TESTS, QUANTITIES, isStagelessCause, type Cause, type Quantity } from '#shared/types/diagnosis'
+import { CAUSES, STAGES, TESTS, QUANTITIES, isStagelessCause, type Cause } from '#shared/types/diagnosis'
 import { causeSchema, stageSchema, testSlugSchema, wordEnum } from '#shared/schemas/diagnosis'
 import { EQUIPMENT_CLASSES } from '#shared/types/equipment'
 import { FACT_SPECS, type FactType } from './fact-vocabulary'
@@ -398,4 +398,3 @@ export function createKnowledgeBase(source: unknown, version: KnowledgeBaseVersi
   return { ...parsed, version: knowledgeBaseVersionSchema.parse(version) }
 }
 
-export type { Quantity }

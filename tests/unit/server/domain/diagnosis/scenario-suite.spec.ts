@@ -6,6 +6,7 @@
  */
 import { describe, expect, it } from 'vitest'
 import { demoHistoryCounts } from '#server/db/seeders/demo-cases'
+import { rankDiagnosis } from '#server/domain/diagnosis/rank'
 import { seedKb } from './scenario-helpers'
 import { HELD_OUT_SCENARIOS, TUNING_SCENARIOS, hypothesisLabel, scoreSuite } from './scenarios/suite'
 
@@ -46,5 +47,15 @@ describe('scenario suite', () => {
     const plain = await scoreSuite(seedKb(), ALL)
     const learned = await scoreSuite(seedKb(), ALL, (c) => history.get(c) ?? [])
     expect(learned.results.map((r) => r.ranked[0])).toEqual(plain.results.map((r) => r.ranked[0]))
+  })
+
+  it('speaks in people’s words: no fact names, unfilled placeholders or missing values in evidence, warnings or notes', async () => {
+    const rough: string[] = []
+    for (const s of ALL) {
+      const r = await rankDiagnosis(seedKb(), s.request)
+      const texts = [...r.causes.flatMap((c) => [...c.evidence, ...c.evidenceAgainst].map((e) => e.text)), ...r.warnings, ...r.setAside, r.priorNote, ...r.tests.map((t) => t.value)]
+      for (const t of texts) if (/\?|undefined|NaN|[{}]|\b[a-z]+\.[a-z]+[A-Z]\w*|\b(high|low|single):[a-z]/.test(t)) rough.push(`${s.id}: ${t}`)
+    }
+    expect(rough).toEqual([])
   })
 })
