@@ -221,6 +221,8 @@ export interface RankRequest {
 export interface EvidenceItem {
   rule: string
   text: string
+  /** How many times as likely this cause is made by the item, against the field of causes (below 1: against it). */
+  factor?: number
 }
 
 export interface RankedCause {

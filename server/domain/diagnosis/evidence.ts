@@ -194,7 +194,11 @@ export function rankHypotheses(model: KindModel, causes: CauseDef[], priors: num
         const item = { rule: c.id, text: c.text, s }
         ;(s > 0 ? evidence : against).push(item)
       }
-      const top = (xs: typeof evidence) => xs.sort((a, b) => Math.abs(b.s) - Math.abs(a.s)).slice(0, EVIDENCE_SHOWN_MAX).map(({ rule, text }) => ({ rule, text }))
+      const top = (xs: typeof evidence) =>
+        xs
+          .sort((a, b) => Math.abs(b.s) - Math.abs(a.s))
+          .slice(0, EVIDENCE_SHOWN_MAX)
+          .map(({ rule, text, s }) => ({ rule, text, factor: Number(Math.exp(s).toPrecision(2)) }))
       return {
         cause: h.cause,
         ...(h.stage ? { stage: h.stage } : {}),

@@ -78,6 +78,10 @@ describe('the standing pressure of the contract example', () => {
     expect(top(r)).toEqual(['refrigerant-leak@low'])
     expect(r.causes[0]?.probability).toBeGreaterThan(0.8)
     expect(r.causes[0]?.evidence.map((e) => e.text).join(' ')).toMatch(/Low stage standing pressure 600 kPa is 3\d\.\d % of the 1\d\d\d kPa expected at 21\.0 °C/)
+    // Each item says by how much it moves the cause against the field: for above 1, against below 1.
+    expect(r.causes[0]?.evidence.every((e) => (e.factor ?? 0) > 1)).toBe(true)
+    const blockage = r.causes.find((c) => label(c) === 'restriction@low')
+    expect(blockage?.evidenceAgainst.find((e) => e.rule === 'standing-against-expected-gas@low')?.factor).toBeLessThan(0.1)
     expect(r.tests.some((t) => t.test === 'standing-pressure-check' && t.stage === 'low')).toBe(false)
   })
 
