@@ -16,7 +16,7 @@ import { isStageQuantity, type Quantity, type Stage, type UnitKind } from '#shar
 import { FACT_SPECS } from './fact-vocabulary'
 import type { FactValue, Facts } from './fact-sheet'
 import type { KnowledgeBase, LeafCondition, NestedCondition, RuleDef } from './knowledge-base'
-import { expandRule, placeholdersOf, type PreparedFinding } from './rule-expansion'
+import { ABSOLUTE_PREFIX, expandRule, placeholderFact, placeholdersOf, type PreparedFinding } from './rule-expansion'
 
 // ------------------------------------------------------------------ operators
 
@@ -198,7 +198,10 @@ export function formatFact(v: FactValue | undefined): string {
 /** Fills `{fact}` placeholders with the values measured or derived for this case. */
 export function renderText(template: string, facts: Facts): string {
   let out = template
-  for (const name of placeholdersOf(template)) out = out.replaceAll(`{${name}}`, formatFact(facts[name]))
+  for (const name of placeholdersOf(template)) {
+    const value = facts[placeholderFact(name)]
+    out = out.replaceAll(`{${name}}`, formatFact(name.startsWith(ABSOLUTE_PREFIX) && typeof value === 'number' ? Math.abs(value) : value))
+  }
   return out
 }
 

@@ -14,7 +14,7 @@ import { CAUSES, STAGES, TESTS, QUANTITIES, isStagelessCause, type Cause } from 
 import { causeSchema, stageSchema, testSlugSchema, wordEnum } from '#shared/schemas/diagnosis'
 import { EQUIPMENT_CLASSES } from '#shared/types/equipment'
 import { FACT_SPECS, type FactType } from './fact-vocabulary'
-import { collectLeaves, expandRule, placeholdersOf } from './rule-expansion'
+import { collectLeaves, expandRule, placeholderFact, placeholdersOf } from './rule-expansion'
 import { checkTable, tableKeyProblems, type LikelihoodTable } from './likelihood'
 
 // ---------------------------------------------------------------- conditions
@@ -325,7 +325,7 @@ function checkRuleFacts(rule: RuleDef, ctx: z.RefinementCtx): void {
       else if (spec.type !== 'number') report(['event', 'params', 'measure'], `"${fact}" is ${spec.type}; a measure needs a number fact`)
     }
     for (const text of Object.values(prepared.because)) {
-      for (const ph of placeholdersOf(text)) if (!FACT_SPECS.has(ph)) report(['event', 'params', 'because'], `unknown placeholder {${ph}}`)
+      for (const ph of placeholdersOf(text)) if (!FACT_SPECS.has(placeholderFact(ph))) report(['event', 'params', 'because'], `unknown placeholder {${ph}}`)
     }
   }
 }

@@ -80,6 +80,7 @@ export function substituteStage(text: string, stage: Stage | undefined): string 
   if (!stage) return text
   return text
     .replaceAll('{stage.', `{${stage}.`)
+    .replaceAll('{abs:stage.', `{abs:${stage}.`)
     .replaceAll('{stage}', stage)
     .replaceAll('{@stage}', STAGE_WORDS[stage][0])
     .replaceAll('{@Stage}', STAGE_WORDS[stage][1])
@@ -149,7 +150,15 @@ function topLevelEquals(c: NestedCondition, out: [string, string | number | bool
 }
 
 const PLACEHOLDER = /\{([^{}]+)\}/g
+/** `{abs:fact}` shows the size of a value whose sign the sentence already says ("8.1 K below"). */
+export const ABSOLUTE_PREFIX = 'abs:'
 
+/** Placeholders of a text as written (`abs:low.superheatK`). */
 export function placeholdersOf(template: string): string[] {
   return [...template.matchAll(PLACEHOLDER)].map((m) => m[1] ?? '')
+}
+
+/** The fact a placeholder reads. */
+export function placeholderFact(placeholder: string): string {
+  return placeholder.startsWith(ABSOLUTE_PREFIX) ? placeholder.slice(ABSOLUTE_PREFIX.length) : placeholder
 }

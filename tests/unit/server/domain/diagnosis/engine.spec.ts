@@ -71,6 +71,7 @@ describe('running findings', () => {
 
   it('renders values with sensible precision', () => {
     expect(renderText('{a} kPa, {b} K, {c}, {d}', { a: 1999.39, b: -3.456, c: true, d: 'R290' })).toBe('1999 kPa, -3.5 K, yes, R290')
+    expect(renderText('{abs:b} K below', { b: -8.14 })).toBe('8.1 K below')
   })
 })
 
