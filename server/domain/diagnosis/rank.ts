@@ -14,7 +14,7 @@ import { proposeTests } from './next-test'
 import { priorsFor, type RankOptions } from './priors'
 import { resolveTestResults } from './test-results'
 
-export { RankInputError } from './test-results'
+export { confirmationIsDefinitive, RankInputError } from './test-results'
 export type { LearnedCount, RankOptions } from './priors'
 
 /** Proposals beyond the first few are never tried in practice; the list stops here. */

@@ -7,10 +7,11 @@
  * once an outcome has settled a cause by itself (a leak found), a test that opens the system is part of
  * the repair, and a test repeated on the same stage verifies the repair; neither moves the diagnosis.
  */
-import type { Stage, TestResult, UnitKind } from '#shared/types/diagnosis'
+import type { Cause, Stage, TestResult, UnitKind } from '#shared/types/diagnosis'
 import { STAGES_OF_KIND } from '#shared/schemas/diagnosis'
 import { STAGE_PHRASE } from './fact-sheet'
 import type { KnowledgeBase, TestDef, TestOutcomeDef } from './knowledge-base'
+import { resolveEntry } from './likelihood'
 
 export interface ResolvedTestResult {
   test: TestDef
@@ -71,4 +72,24 @@ export function resolveTestResults(kb: Pick<KnowledgeBase, 'tests'>, kind: UnitK
   })
   if (issues.length) throw new RankInputError(issues)
   return { diagnosis: [...latest.values()], setAside }
+}
+
+/** Smallest chance a definitive outcome must give the confirmed cause to count as proving it. */
+const PROVES_FROM = 0.5
+
+/**
+ * Whether a cause confirmed at closing rests on a definitive test: an outcome marked definitive, on the
+ * confirmed stage, that the cause makes likely (a leak found for a leak, a probe found off for a probe
+ * fault). The case layer uses it to decide which confirmations may teach the starting odds; a repair
+ * that by itself proves the cause (a part replaced and the fault gone) is the case record's to mark.
+ */
+export function confirmationIsDefinitive(kb: Pick<KnowledgeBase, 'tests'>, kind: UnitKind, confirmed: { cause: Cause; stage?: Stage }, results: TestResult[]): boolean {
+  return results.some((r) => {
+    const test = kb.tests.find((t) => t.slug === r.test)
+    const outcome = test?.outcomes.find((o) => o.slug === r.outcome)
+    if (!test || !outcome?.definitive) return false
+    const stage = r.stage ?? (test.stages.filter((s) => STAGES_OF_KIND[kind].includes(s)).length === 1 ? test.stages.find((s) => STAGES_OF_KIND[kind].includes(s)) : undefined)
+    if (confirmed.stage && stage !== confirmed.stage) return false
+    return resolveEntry(outcome.likelihoods, confirmed, stage, kind) >= PROVES_FROM
+  })
 }
