@@ -54,13 +54,21 @@ function misfitK(offset: number, belowOnly: boolean): number {
   return belowOnly ? Math.max(0, -offset) : Math.abs(offset)
 }
 
+/** A running coil may read a few kelvin above saturation where the probe sits on a drier part (common practice, no source). */
+const COIL_ABOVE_SATURATION_K = 3
+
+/** How far a pair lies from a candidate's curve: a running pair fits anywhere from saturation to a few kelvin above it. */
+function distanceK(offset: number, belowOnly: boolean): number {
+  return belowOnly ? Math.max(0, -offset, offset - COIL_ABOVE_SATURATION_K) : Math.abs(offset)
+}
+
 export function bestOtherFit(own: props.Designation, pair: SaturatedPair): { designation: props.Designation; k: number } | undefined {
   let best: { designation: props.Designation; k: number } | undefined
   for (const candidate of props.DESIGNATIONS) {
     if (candidate === own) continue
     const offset = saturationOffsetK(candidate, pair.pKpa, pair.tC)
     if (offset === undefined) continue
-    const k = Math.abs(offset)
+    const k = distanceK(offset, pair.belowOnly)
     if (!best || k < best.k) best = { designation: candidate, k }
   }
   return best
@@ -74,7 +82,7 @@ export function fitRefrigerant(nameplate: props.Designation, pair: SaturatedPair
   const mismatch =
     best !== undefined &&
     misfit > Math.max(MISFIT_MIN_K, 3 * pair.sigmaK) &&
-    best.k <= Math.max(FIT_MAX_K, pair.sigmaK) &&
+    best.k <= Math.max(FIT_MAX_K, 1.2 * pair.sigmaK) &&
     best.k < misfit - 2
   const fit: RefrigerantFit = { offsetK, mismatch, working: mismatch && best ? best.designation : nameplate }
   if (best) fit.best = best

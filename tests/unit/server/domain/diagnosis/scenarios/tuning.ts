@@ -175,9 +175,9 @@ export const TUNING: ScenarioSpec[] = [
     state: withState(healthy('ultR134aR23', 23), { cabinet: -58, cascadeHx: -17, high: { sst: -25, sct: 31, currentPct: 55, dischargeSuperheat: 80 }, low: { sst: -72, sct: -13 } }),
   },
   {
-    id: 'T35', title: 'Ethane stage charged with ethylene by mistake', source: CP('an evaporator colder than the nameplate refrigerant can boil at that pressure, on another refrigerant’s curve'), unit: 'ultR404aR170', expected: { cause: 'wrong-refrigerant', stage: 'low' },
+    id: 'T35', title: 'Ethane stage charged with ethylene by mistake', source: CP('an evaporator colder than the nameplate refrigerant can boil at that pressure, on another refrigerant’s curve; the heat exchangers still set the temperatures'), unit: 'ultR404aR170', expected: { cause: 'wrong-refrigerant', stage: 'low' },
     symptoms: ['recently-serviced', 'refrigerant-label-mismatch'],
-    state: withState(healthy('ultR404aR170', 22), { cabinet: -70, low: { actual: 'R1150', sst: -100, sct: -40, evaporator: -98 } }),
+    state: withState(healthy('ultR404aR170', 22), { cabinet: -70, low: { actual: 'R1150', sst: -84, sct: -27, evaporator: -83 } }),
   },
   {
     id: 'T36', title: 'Cold trap high-stage expansion valve underfeeding', source: KIM('expansion-device restriction'), unit: 'trapR507aR1150', expected: { cause: 'expansion-valve-underfeeding', stage: 'high' },
