@@ -57,9 +57,14 @@ function misfitK(offset: number, belowOnly: boolean): number {
 /** A running coil may read a few kelvin above saturation where the probe sits on a drier part (common practice, no source). */
 const COIL_ABOVE_SATURATION_K = 3
 
-/** How far a pair lies from a candidate's curve: a running pair fits anywhere from saturation to a few kelvin above it. */
+/**
+ * How far a pair lies from a candidate's curve. A running pair fits anywhere from saturation to a few
+ * kelvin above it; within that range the candidate nearest saturation is preferred, by a tenth.
+ */
 function distanceK(offset: number, belowOnly: boolean): number {
-  return belowOnly ? Math.max(0, -offset, offset - COIL_ABOVE_SATURATION_K) : Math.abs(offset)
+  if (!belowOnly) return Math.abs(offset)
+  if (offset < 0) return -offset
+  return offset <= COIL_ABOVE_SATURATION_K ? offset / 10 : offset - COIL_ABOVE_SATURATION_K * 0.9
 }
 
 export function bestOtherFit(own: props.Designation, pair: SaturatedPair): { designation: props.Designation; k: number } | undefined {
