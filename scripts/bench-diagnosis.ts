@@ -3,7 +3,7 @@
  *
  * Prints, in one run:
  *   1. rankDiagnosis latency (facts + rules + ranking + next test) with the seed base from content-src,
- *      on two fixed cases and over the scenario suite, wall clock and CPU time per call;
+ *      on two fixed cases and over the scenario suite;
  *   2. the same with a generated 2,000-rule base over the real fact vocabulary;
  *   3. the rule-evaluation step of (2) against a bare json-rules-engine 7.3.1 run of the same
  *      2,000 rules on the same facts, and the ratio.
@@ -126,29 +126,22 @@ interface Stats {
   p50: number
   p95: number
   n: number
-  /** The same quantiles of the CPU time this process spent per call: what the work costs when the cores are shared. */
-  cpuP50: number
-  cpuP95: number
 }
 
 async function time(n: number, warmup: number, fn: (i: number) => Promise<unknown>): Promise<Stats> {
   for (let i = 0; i < warmup; i++) await fn(i)
-  const wall: number[] = []
-  const cpu: number[] = []
+  const samples: number[] = []
   for (let i = 0; i < n; i++) {
-    const c0 = process.cpuUsage()
     const t0 = performance.now()
     await fn(i)
-    wall.push(performance.now() - t0)
-    const c = process.cpuUsage(c0)
-    cpu.push((c.user + c.system) / 1000)
+    samples.push(performance.now() - t0)
   }
-  const q = (xs: number[], x: number) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(x * xs.length))] ?? NaN
-  return { p50: q(wall, 0.5), p95: q(wall, 0.95), n, cpuP50: q(cpu, 0.5), cpuP95: q(cpu, 0.95) }
+  samples.sort((a, b) => a - b)
+  const q = (x: number) => samples[Math.min(samples.length - 1, Math.floor(x * samples.length))] ?? NaN
+  return { p50: q(0.5), p95: q(0.95), n }
 }
 
 const fmt = (s: Stats) => `p50 ${s.p50.toFixed(2).padStart(7)} ms   p95 ${s.p95.toFixed(2).padStart(7)} ms   (n=${s.n})`
-const fmtCpu = (s: Stats) => `CPU time per call p50 ${s.cpuP50.toFixed(2)} ms, p95 ${s.cpuP95.toFixed(2)} ms`
 
 async function main(): Promise<void> {
   const seed: KnowledgeBase = { ...loadKnowledgeBaseFromDirectory(join(process.cwd(), 'content-src')), version: { id: 'bench-seed', label: 'seed', status: 'draft' } }
@@ -172,7 +165,6 @@ async function main(): Promise<void> {
   console.log(`  rankDiagnosis, rich cascade case   ${fmt(seedRich)}`)
   console.log(`  rankDiagnosis, sparse single case  ${fmt(seedSparse)}`)
   console.log(`  rankDiagnosis, the scenario suite  ${fmt(seedSuite)}   (${suite.length} cases, with tests and the next test)`)
-  console.log(`  ${fmtCpu(seedRich)} (rich), ${fmtCpu(seedSuite)} (suite); wall-clock p95 includes waits for shared cores`)
   console.log(`Generated base: ${GENERATED_RULES} rules over ${FACT_SPECS.size} vocabulary facts; ${Object.keys(facts).length} facts present, ${evaluated} rules handed to json-rules-engine after the indexes`)
   console.log(`  rankDiagnosis, rich cascade case   ${fmt(genRank)}`)
   console.log(`  rule step, Rimecase (indexed)      ${fmt(ours)}`)
