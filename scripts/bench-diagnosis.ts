@@ -2,7 +2,8 @@
  * Diagnosis ranking benchmark (run: npx tsx --tsconfig tsconfig.scripts.json scripts/bench-diagnosis.ts).
  *
  * Prints, in one run:
- *   1. rankDiagnosis latency (facts + rules + ranking + next test) with the seed base from content-src;
+ *   1. rankDiagnosis latency (facts + rules + ranking + next test) with the seed base from content-src,
+ *      on two fixed cases and over the scenario suite;
  *   2. the same with a generated 2,000-rule base over the real fact vocabulary;
  *   3. the rule-evaluation step of (2) against a bare json-rules-engine 7.3.1 run of the same
  *      2,000 rules on the same facts, and the ratio.
@@ -14,11 +15,12 @@ import { Engine } from 'json-rules-engine'
 import { CAUSES, type Cause, type RankRequest, type Reading, type Stage } from '#shared/types/diagnosis'
 import { saturationPressure } from '#shared/utils/properties'
 import { loadKnowledgeBaseFromDirectory } from '#server/domain/diagnosis/content-loader'
-import { CUSTOM_OPERATORS, prepareKnowledgeBase, runRules } from '#server/domain/diagnosis/engine'
+import { CUSTOM_OPERATORS, prepareKnowledgeBase, runFindings } from '#server/domain/diagnosis/engine'
 import { FACT_SPECS } from '#server/domain/diagnosis/fact-vocabulary'
 import { deriveFacts } from '#server/domain/diagnosis/facts'
 import { ruleDefSchema, type KnowledgeBase, type LeafCondition, type RuleDef } from '#server/domain/diagnosis/knowledge-base'
 import { rankDiagnosis } from '#server/domain/diagnosis/rank'
+import { HELD_OUT_SCENARIOS, TUNING_SCENARIOS } from '../tests/unit/server/domain/diagnosis/scenarios/suite'
 
 const GENERATED_RULES = 2000
 
@@ -86,8 +88,10 @@ function generateRules(n: number): RuleDef[] {
   const rand = rng(20240601)
   const pick = <T>(xs: readonly T[]): T => xs[Math.floor(rand() * xs.length)] as T
   const facts = [...FACT_SPECS.values()].filter((f) => f.type !== 'string')
+  const numeric = facts.filter((f) => f.type === 'number' && f.stage)
   const ops = ['lessThan', 'greaterThan', 'between', 'withinPercent'] as const
-  const causes = CAUSES.filter((c): c is Exclude<Cause, 'other'> => c !== 'other')
+  const causes = CAUSES.filter((c): c is Exclude<Cause, 'other' | 'no-refrigeration-fault'> => c !== 'other' && c !== 'no-refrigeration-fault')
+  const p = () => Math.round((0.05 + rand() * 0.9) * 100) / 100
   const leaf = (): LeafCondition => {
     const f = pick(facts)
     if (f.type === 'boolean') return { fact: f.name, operator: 'equal', value: rand() < 0.5 }
@@ -100,11 +104,19 @@ function generateRules(n: number): RuleDef[] {
   return Array.from({ length: n }, (_, i) => {
     const leaves = Array.from({ length: 1 + Math.floor(rand() * 3) }, leaf)
     const stage = leaves.map((l) => FACT_SPECS.get(l.fact)?.stage).find(Boolean) ?? pick(['high', 'low', 'single'] as const)
-    return ruleDefSchema.parse({
-      name: `gen-${i}`,
-      conditions: { all: leaves },
-      event: { type: 'evidence', params: { cause: pick(causes), stage, likelihoodRatio: Math.round((0.2 + rand() * 4) * 100) / 100, because: 'generated' } },
-    })
+    const cause = pick(causes)
+    // A quarter of the findings are graded over a measured residual, the rest categorical.
+    const graded = rand() < 0.25
+    const measured = pick(numeric.filter((f) => f.stage === stage))
+    const params = graded
+      ? {
+          stage,
+          measure: { fact: measured.name, sigma: 1 + rand() * 3, unit: measured.unit, bands: { low: [-30, -5], normal: [-5, 5], high: [5, 30] } },
+          likelihoods: { healthy: 'normal', default: { normal: 0.6, low: 0.2, high: 0.2 }, other: 'any', [cause]: pick(['low', 'high']) },
+          because: 'generated',
+        }
+      : { stage, likelihoods: { healthy: p(), default: p(), other: p(), [cause]: p() }, because: 'generated' }
+    return ruleDefSchema.parse({ name: `gen-${i}`, conditions: { all: leaves }, event: { type: 'finding', params } })
   })
 }
 
@@ -116,12 +128,12 @@ interface Stats {
   n: number
 }
 
-async function time(n: number, warmup: number, fn: () => Promise<unknown>): Promise<Stats> {
-  for (let i = 0; i < warmup; i++) await fn()
+async function time(n: number, warmup: number, fn: (i: number) => Promise<unknown>): Promise<Stats> {
+  for (let i = 0; i < warmup; i++) await fn(i)
   const samples: number[] = []
   for (let i = 0; i < n; i++) {
     const t0 = performance.now()
-    await fn()
+    await fn(i)
     samples.push(performance.now() - t0)
   }
   samples.sort((a, b) => a - b)
@@ -138,19 +150,22 @@ async function main(): Promise<void> {
 
   const seedRich = await time(300, 100, () => rankDiagnosis(seed, RICH))
   const seedSparse = await time(300, 100, () => rankDiagnosis(seed, SPARSE))
+  const suite = [...TUNING_SCENARIOS, ...HELD_OUT_SCENARIOS].map((sc) => sc.request)
+  const seedSuite = await time(3 * suite.length, suite.length, (i) => rankDiagnosis(seed, suite[i % suite.length] as RankRequest))
   const genRank = await time(100, 10, () => rankDiagnosis(generated, RICH))
 
   const prepared = prepareKnowledgeBase(generated)
-  const ours = await time(100, 10, () => runRules(prepared, facts))
+  const ours = await time(100, 10, () => runFindings(prepared, facts))
   const bareEngine = new Engine(generated.rules.map((r) => ({ name: r.name, conditions: r.conditions as never, event: { type: 'evidence', params: { id: r.name } } })), { allowUndefinedFacts: true })
   for (const [name, fn] of Object.entries(CUSTOM_OPERATORS)) bareEngine.addOperator(name, fn)
   const bare = await time(30, 5, () => bareEngine.run(facts))
-  const evaluated = (await runRules(prepared, facts)).evaluated
+  const evaluated = (await runFindings(prepared, facts)).evaluated
 
-  console.log(`Seed base: ${seed.rules.length} rules (${prepareKnowledgeBase(seed).rules.length} after stage expansion)`)
+  console.log(`Seed base: ${seed.rules.length} findings (${prepareKnowledgeBase(seed).findings.length} after stage expansion)`)
   console.log(`  rankDiagnosis, rich cascade case   ${fmt(seedRich)}`)
   console.log(`  rankDiagnosis, sparse single case  ${fmt(seedSparse)}`)
-  console.log(`Generated base: ${GENERATED_RULES} rules over ${FACT_SPECS.size} vocabulary facts; ${Object.keys(facts).length} facts present, ${evaluated} rules have all their facts`)
+  console.log(`  rankDiagnosis, the scenario suite  ${fmt(seedSuite)}   (${suite.length} cases, with tests and the next test)`)
+  console.log(`Generated base: ${GENERATED_RULES} rules over ${FACT_SPECS.size} vocabulary facts; ${Object.keys(facts).length} facts present, ${evaluated} rules handed to json-rules-engine after the indexes`)
   console.log(`  rankDiagnosis, rich cascade case   ${fmt(genRank)}`)
   console.log(`  rule step, Rimecase (indexed)      ${fmt(ours)}`)
   console.log(`  rule step, bare json-rules-engine  ${fmt(bare)}`)

@@ -4,8 +4,10 @@
  */
 import { z } from 'zod'
 import {
+  CASE_PHASES,
   CAUSES,
   DIMENSION_UNITS,
+  METERING_DEVICES,
   QUANTITIES,
   QUANTITY_DIMENSION,
   READING_UNITS,
@@ -32,6 +34,8 @@ export const symptomSchema = wordEnum('symptom', SYMPTOMS)
 export const causeSchema = wordEnum('cause', CAUSES)
 export const testSlugSchema = wordEnum('test', TESTS)
 export const readingUnitSchema = wordEnum('unit', READING_UNITS)
+export const casePhaseSchema = wordEnum('phase', CASE_PHASES)
+export const meteringDeviceSchema = wordEnum('metering device', METERING_DEVICES)
 
 const finite = z.number().finite()
 const positive = finite.positive()
@@ -45,6 +49,7 @@ export const stageConfigSchema = z
     referenceStandingPressureKpa: positive.optional(),
     referenceAmbientC: finite.optional(),
     ratedCurrentA: positive.optional(),
+    meteringDevice: meteringDeviceSchema.optional(),
   })
   .strict()
 
@@ -90,6 +95,7 @@ export const readingSchema = z
     stage: stageSchema.optional(),
     value: z.union([finite, z.boolean()]),
     unit: readingUnitSchema,
+    phase: casePhaseSchema.optional(),
   })
   .strict()
   .superRefine((r, ctx) => {
@@ -128,6 +134,7 @@ export const testResultSchema = z
     stage: stageSchema.optional(),
     // Outcome words belong to each test of the knowledge base, so they are checked at ranking time.
     outcome: z.string().min(1),
+    phase: casePhaseSchema.optional(),
   })
   .strict()
 

@@ -74,8 +74,21 @@ export const CAUSES = [
   'high-heat-load',
   'control-sensor-fault',
   'other',
+  // Additions to the contract's list (older words keep their meaning):
+  'expansion-valve-underfeeding',
+  'expansion-valve-overfeeding',
+  'expansion-tank-fault',
+  'no-refrigeration-fault',
 ] as const
 export type Cause = (typeof CAUSES)[number]
+
+/** Hypotheses that belong to no single circuit: the catch-all and the healthy state. */
+export const STAGELESS_CAUSES = ['other', 'no-refrigeration-fault'] as const satisfies readonly Cause[]
+export type StagelessCause = (typeof STAGELESS_CAUSES)[number]
+
+export function isStagelessCause(cause: Cause): cause is StagelessCause {
+  return (STAGELESS_CAUSES as readonly string[]).includes(cause)
+}
 
 export const TESTS = [
   'standing-pressure-check',
@@ -91,6 +104,9 @@ export const TESTS = [
   'sensor-verification',
   'warm-capillary-test',
   'door-and-load-check',
+  // Additions to the contract's list:
+  'expansion-valve-check',
+  'expansion-tank-check',
 ] as const
 export type TestSlug = (typeof TESTS)[number]
 
@@ -145,7 +161,12 @@ export interface StageConfig {
   referenceAmbientC?: number
   /** Rated (nameplate RLA) compressor current; lets current readings be judged as % of rated. */
   ratedCurrentA?: number
+  /** How the stage meters liquid into its evaporator; expansion-valve causes need a valve. */
+  meteringDevice?: MeteringDevice
 }
+
+export const METERING_DEVICES = ['capillary', 'expansion-valve'] as const
+export type MeteringDevice = (typeof METERING_DEVICES)[number]
 
 export interface UnitDesign {
   cabinetC?: number
@@ -158,17 +179,29 @@ export interface UnitConfig {
   design?: UnitDesign
 }
 
+/**
+ * Where in the job an observation was made. Diagnosis runs until a cause is confirmed or a repair
+ * starts; what is measured while repairing (a nitrogen hold, a vacuum decay) or afterwards
+ * (verification) is recorded and reported but never moves the ranking.
+ */
+export const CASE_PHASES = ['diagnosis', 'repair', 'verification'] as const
+export type CasePhase = (typeof CASE_PHASES)[number]
+
 export interface Reading {
   quantity: Quantity
   stage?: Stage
   value: number | boolean
   unit: ReadingUnit
+  /** Absent means diagnosis. */
+  phase?: CasePhase
 }
 
 export interface TestResult {
   test: TestSlug
   stage?: Stage
   outcome: string
+  /** Absent means diagnosis. */
+  phase?: CasePhase
 }
 
 /** Where the unit stands: sets the atmospheric pressure used to turn gauge readings into absolute. */
@@ -188,11 +221,13 @@ export interface RankRequest {
 export interface EvidenceItem {
   rule: string
   text: string
+  /** How many times as likely this cause is made by the item, against the field of causes (below 1: against it). */
+  factor?: number
 }
 
 export interface RankedCause {
   cause: Cause
-  /** Absent only for the catch-all `other`, which is not tied to one circuit. */
+  /** Absent only for `other` and `no-refrigeration-fault`, which are not tied to one circuit. */
   stage?: Stage
   probability: number
   title: string
@@ -209,11 +244,16 @@ export interface HypothesisRef {
 export interface ProposedTest {
   test: TestSlug
   stage: Stage
-  /** Expected information gain in bits over the current cause×stage distribution. */
+  /**
+   * Expected information gain over the current cause×stage distribution (bits). Kept for scripts
+   * that sort or compare proposals; people read `value` instead.
+   */
   expectedGain: number
+  /** What the test would settle, in words ("Settles leak against blockage on the low stage."). */
+  value: string
   minutes: number
   title: string
-  /** Gain per minute after the invasiveness penalty; the sort key. */
+  /** Gain per minute of cost (time, plus a surcharge for opening the system or hot work); the sort key. */
   score: number
   opensSystem: boolean
   hotWork: boolean
@@ -235,6 +275,10 @@ export interface StageDerived {
   currentPercentOfRated?: number
   refrigerantFitK?: number
   bestFitRefrigerant?: string
+  /** Refrigerant the derived values were worked out with: the nameplate one, or the best fit when the readings fit another. */
+  workingRefrigerant?: string
+  /** Whether the compressor was running when the readings were taken (reported or inferred). */
+  running?: boolean
 }
 
 export interface MissingReading {
@@ -250,6 +294,8 @@ export interface RankResponse {
   derived: Partial<Record<Stage, StageDerived>>
   warnings: string[]
   priorNote: string
+  /** Readings and test results kept in the record but left out of the ranking, in words (repair and verification phases). */
+  setAside: string[]
   missingReadings: MissingReading[]
   knowledgeBaseVersion: { id: string | number; label: string; status: 'draft' | 'published' }
 }

@@ -27,6 +27,7 @@ export const ranking: RankResponse = {
     {
       test: 'standing-pressure-check', stage: 'low', expectedGain: 0.62, minutes: 20, title: 'Standing pressure check', score: 0.03,
       opensSystem: false, hotWork: false, safetyNotes: ['Gauges rated for the stage.'], separates: [{ cause: 'refrigerant-leak', stage: 'low' }, { cause: 'restriction', stage: 'low' }],
+      value: 'Settles a leak against a blockage on the low stage.',
     },
   ],
   derived: { low: { saturatedSuctionC: -80.1, superheatK: 12 } },
@@ -34,4 +35,5 @@ export const ranking: RankResponse = {
   priorNote: 'Starting odds from 12 closed cases of ultra-low freezers.',
   missingReadings: [{ quantity: 'standingPressure', stage: 'low', rulesWaiting: 4 }, { quantity: 'ambientTemperature', rulesWaiting: 2 }],
   knowledgeBaseVersion: { id: 1, label: 'shipped', status: 'published' },
+  setAside: [],
 }

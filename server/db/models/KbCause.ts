@@ -7,6 +7,7 @@ export class KbCause extends Model<InferAttributes<KbCause>, InferCreationAttrib
   declare versionId: ForeignKey<KbVersion['id']>
   declare slug: string
   declare title: string
+  declare short: string | null
   declare description: string
   declare stages: unknown
   declare priors: unknown
@@ -19,6 +20,7 @@ export class KbCause extends Model<InferAttributes<KbCause>, InferCreationAttrib
         id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
         slug: { type: DataTypes.STRING(60), allowNull: false },
         title: { type: DataTypes.STRING(200), allowNull: false },
+        short: { type: DataTypes.STRING(120), allowNull: true },
         description: { type: DataTypes.TEXT, allowNull: false },
         stages: { type: DataTypes.JSONB, allowNull: false },
         priors: { type: DataTypes.JSONB, allowNull: false },

@@ -12,6 +12,8 @@ export class KbTest extends Model<InferAttributes<KbTest>, InferCreationAttribut
   declare opensSystem: boolean
   declare hotWork: boolean
   declare stages: unknown
+  declare answeredBy: string | null
+  declare sameMeasurementAs: unknown
   declare safetyNotes: unknown
   declare outcomes: unknown
   declare createdAt: CreationOptional<Date>
@@ -28,6 +30,8 @@ export class KbTest extends Model<InferAttributes<KbTest>, InferCreationAttribut
         opensSystem: { type: DataTypes.BOOLEAN, allowNull: false },
         hotWork: { type: DataTypes.BOOLEAN, allowNull: false },
         stages: { type: DataTypes.JSONB, allowNull: false },
+        answeredBy: { type: DataTypes.STRING(40), allowNull: true },
+        sameMeasurementAs: { type: DataTypes.JSONB, allowNull: true },
         safetyNotes: { type: DataTypes.JSONB, allowNull: false },
         outcomes: { type: DataTypes.JSONB, allowNull: false },
         createdAt: DataTypes.DATE,

@@ -33,7 +33,7 @@ export async function insertKnowledgeBaseVersion(
   )
   const versionId = version.id
   await KbCause.bulkCreate(source.causes.map((c) => ({ versionId, ...c })), { transaction })
-  await KbTest.bulkCreate(source.tests.map((t) => ({ versionId, ...t })), { transaction })
+  await KbTest.bulkCreate(source.tests.map((t) => ({ versionId, answeredBy: null, sameMeasurementAs: null, ...t })), { transaction })
   await KbRule.bulkCreate(
     source.rules.map((r) => ({ versionId, name: r.name, subject: r.subject ?? 'general', definition: r })),
     { transaction },
@@ -68,12 +68,13 @@ export async function loadVersionContent(version: KbVersionRecord): Promise<Know
   ])
   return {
     version: { id: version.id, label: version.label, status: version.status === 'published' ? 'published' : 'draft' },
-    causes: causes.map((c) => ({ slug: c.slug, title: c.title, stages: c.stages, priors: c.priors, description: c.description }) as CauseDef),
+    causes: causes.map((c) => ({ slug: c.slug, title: c.title, ...(c.short !== null ? { short: c.short } : {}), stages: c.stages, priors: c.priors, description: c.description }) as CauseDef),
     tests: tests.map(
       (t) =>
         ({
           slug: t.slug, title: t.title, minutes: t.minutes, opensSystem: t.opensSystem, hotWork: t.hotWork,
-          stages: t.stages, safetyNotes: t.safetyNotes, outcomes: t.outcomes, procedure: t.procedure,
+          stages: t.stages, ...(t.answeredBy !== null ? { answeredBy: t.answeredBy } : {}), ...(t.sameMeasurementAs !== null ? { sameMeasurementAs: t.sameMeasurementAs } : {}),
+          safetyNotes: t.safetyNotes, outcomes: t.outcomes, procedure: t.procedure,
         }) as TestDef,
     ),
     rules: rules.map((r) => r.definition as RuleDef),

@@ -1,19 +1,22 @@
 /**
- * Runs the evidence rules of a knowledge-base version with json-rules-engine.
+ * Runs the findings of a knowledge-base version with json-rules-engine: the engine decides which
+ * findings apply to a case; the evidence model (evidence.ts) then weighs them.
  *
- * Speed comes from three things: (1) one prepared Engine per version (rules expanded, parsed into
- * json-rules-engine Rule objects and operators registered once), (2) an index of the facts each
- * rule reads, so that a run hands the engine only the rules whose facts are all present, and
- * (3) an equality index: top-level `equal` tests (symptoms, unit kind) are checked before the
- * engine is called, since most rules hinge on a symptom that is absent. A rule
- * with a missing fact therefore never fires and never sees `undefined`; instead the reading it
- * waits for is reported so the technician knows what would sharpen the ranking.
+ * Speed comes from indexes in front of the engine, built once per version: (1) the facts each finding
+ * reads, so a finding with a missing fact never reaches the engine (and never sees `undefined`: the
+ * reading it waits for is reported instead); (2) an equality index on the `equal` tests directly under
+ * the top-level `all` (symptoms, unit kind, running state); (3) a compiled screen of the whole
+ * condition tree with the same operator semantics as the engine, so the engine only confirms the
+ * findings that will apply instead of evaluating every rule of the version. A finding whose conditions
+ * are nothing but those equality tests (or empty) is settled by the index alone: handing it to the
+ * engine would only repeat the comparison.
  */
 import { Engine, Rule, type EngineResult } from 'json-rules-engine'
 import { isStageQuantity, type Quantity, type Stage, type UnitKind } from '#shared/types/diagnosis'
 import { FACT_SPECS } from './fact-vocabulary'
-import type { FactValue, Facts } from './facts'
-import { expandRule, placeholdersOf, type KnowledgeBase, type PreparedRule, type RuleDef } from './knowledge-base'
+import type { FactValue, Facts } from './fact-sheet'
+import type { KnowledgeBase, LeafCondition, NestedCondition, RuleDef } from './knowledge-base'
+import { ABSOLUTE_PREFIX, expandRule, placeholderFact, placeholdersOf, type PreparedFinding } from './rule-expansion'
 
 // ------------------------------------------------------------------ operators
 
@@ -26,6 +29,45 @@ export const CUSTOM_OPERATORS: Record<string, (fact: unknown, value: unknown) =>
   outside: (f, v) => isNum(f) && isPair(v) && (f < v[0] || f > v[1]),
   withinPercent: (f, v) => isNum(f) && isPair(v) && Math.abs(f - v[0]) <= (Math.abs(v[0]) * v[1]) / 100,
   outsidePercent: (f, v) => isNum(f) && isPair(v) && Math.abs(f - v[0]) > (Math.abs(v[0]) * v[1]) / 100,
+}
+
+const isNumeric = (v: unknown) => Number.parseFloat(String(v)).toString() !== 'NaN'
+
+/** json-rules-engine 7's built-in operators, with their fact validators, plus ours. */
+const SCREEN_OPERATORS: Record<string, (fact: unknown, value: unknown) => boolean> = {
+  equal: (a, b) => a === b,
+  notEqual: (a, b) => a !== b,
+  in: (a, b) => Array.isArray(b) && b.indexOf(a) > -1,
+  notIn: (a, b) => Array.isArray(b) && b.indexOf(a) === -1,
+  lessThan: (a, b) => isNumeric(a) && (a as number) < (b as number),
+  lessThanInclusive: (a, b) => isNumeric(a) && (a as number) <= (b as number),
+  greaterThan: (a, b) => isNumeric(a) && (a as number) > (b as number),
+  greaterThanInclusive: (a, b) => isNumeric(a) && (a as number) >= (b as number),
+  ...CUSTOM_OPERATORS,
+}
+
+type Screen = (facts: Facts) => boolean
+
+/** Compiles a condition tree into a predicate with the engine's semantics (all/any/not, operators above). */
+export function compileScreen(c: NestedCondition): Screen {
+  if ('fact' in c) return compileLeaf(c)
+  if ('all' in c) {
+    const parts = c.all.map(compileScreen)
+    return (facts) => parts.every((p) => p(facts))
+  }
+  if ('any' in c) {
+    const parts = c.any.map(compileScreen)
+    return (facts) => parts.some((p) => p(facts))
+  }
+  const inner = compileScreen(c.not)
+  return (facts) => !inner(facts)
+}
+
+function compileLeaf(leaf: LeafCondition): Screen {
+  const op = SCREEN_OPERATORS[leaf.operator]
+  if (!op) return () => true
+  const { fact, value } = leaf
+  return (facts) => op(facts[fact], value)
 }
 
 /** An Engine that evaluates a chosen subset of its rules; the subset is read synchronously by run(). */
@@ -45,11 +87,11 @@ class SubsetEngine extends Engine {
   }
 }
 
-export function createRuleEngine(rules: { name: string; conditions: unknown; id: string }[]): { engine: SubsetEngine; compiled: Rule[] } {
+export function createRuleEngine(rules: { conditions: unknown; id: string }[]): { engine: SubsetEngine; compiled: Rule[] } {
   const engine = new SubsetEngine([], { allowUndefinedFacts: true })
   for (const [name, fn] of Object.entries(CUSTOM_OPERATORS)) engine.addOperator(name, fn)
   const compiled = rules.map((r) => {
-    const rule = new Rule({ name: r.id, conditions: r.conditions as never, event: { type: 'evidence', params: { id: r.id } } })
+    const rule = new Rule({ name: r.id, conditions: r.conditions as never, event: { type: 'finding', params: { id: r.id } } })
     engine.addRule(rule)
     return rule
   })
@@ -59,11 +101,16 @@ export function createRuleEngine(rules: { name: string; conditions: unknown; id:
 // ------------------------------------------------------------------ prepared versions
 
 export interface PreparedKnowledgeBase {
-  rules: PreparedRule[]
-  byId: Map<string, PreparedRule>
+  findings: PreparedFinding[]
+  byId: Map<string, PreparedFinding>
   engine: SubsetEngine
   compiled: Rule[]
+  screens: Screen[]
+  /** Findings whose whole condition tree is the equality index's tests: no engine run needed. */
+  indexOnly: boolean[]
   source: RuleDef[]
+  /** Per-kind structures of the evidence model, built on first use (evidence.ts). */
+  models: Map<UnitKind, unknown>
 }
 
 const cache = new Map<string, PreparedKnowledgeBase>()
@@ -74,12 +121,27 @@ export function prepareKnowledgeBase(kb: Pick<KnowledgeBase, 'version' | 'rules'
   const key = `${kb.version.id}:${kb.version.status}`
   const hit = cache.get(key)
   if (hit && hit.source === kb.rules) return hit
-  const rules = kb.rules.flatMap(expandRule)
-  const { engine, compiled } = createRuleEngine(rules)
-  const prepared: PreparedKnowledgeBase = { rules, byId: new Map(rules.map((r) => [r.id, r])), engine, compiled, source: kb.rules }
+  const findings = kb.rules.flatMap(expandRule)
+  const { engine, compiled } = createRuleEngine(findings)
+  const prepared: PreparedKnowledgeBase = {
+    findings,
+    byId: new Map(findings.map((r) => [r.id, r])),
+    engine,
+    compiled,
+    screens: findings.map((r) => compileScreen(r.conditions)),
+    indexOnly: findings.map((r) => settledByIndex(r.conditions)),
+    source: kb.rules,
+    models: new Map(),
+  }
   if (cache.size >= CACHE_LIMIT) cache.delete(cache.keys().next().value ?? '')
   cache.set(key, prepared)
   return prepared
+}
+
+/** True when a condition tree holds only `equal` tests under nested `all`s: exactly what the equality index checks. */
+function settledByIndex(c: NestedCondition): boolean {
+  if ('all' in c) return c.all.every((x) => ('fact' in x ? x.operator === 'equal' && !Array.isArray(x.value) : 'all' in x && settledByIndex(x)))
+  return false
 }
 
 export function clearPreparedCache(): void {
@@ -88,41 +150,39 @@ export function clearPreparedCache(): void {
 
 // ------------------------------------------------------------------ running
 
-export interface FiredRule {
-  rule: PreparedRule
-  text: string
-}
-
-export interface RuleRun {
-  fired: FiredRule[]
-  /** Rules left out because at least one of their facts is missing. */
-  waiting: { rule: PreparedRule; missing: string[] }[]
+export interface FindingRun {
+  applied: PreparedFinding[]
+  /** Findings left out because at least one of their facts is missing. */
+  waiting: { finding: PreparedFinding; missing: string[] }[]
+  /** Findings handed to json-rules-engine. */
   evaluated: number
 }
 
-export function missingFacts(rule: PreparedRule, facts: Facts): string[] {
-  return rule.facts.filter((f) => facts[f] === undefined)
+export function missingFacts(finding: PreparedFinding, facts: Facts): string[] {
+  return finding.facts.filter((f) => facts[f] === undefined)
 }
 
-/** Equality index: an `all` holding `symptom.x equal true` cannot fire while the symptom is false. */
-function equalsHold(rule: PreparedRule, facts: Facts): boolean {
-  return rule.requiredEquals.every(([fact, value]) => facts[fact] === value)
+/** Equality index: an `all` holding `symptom.x equal true` cannot apply while the symptom is false. */
+function equalsHold(finding: PreparedFinding, facts: Facts): boolean {
+  return finding.requiredEquals.every(([fact, value]) => facts[fact] === value)
 }
 
-export async function runRules(prepared: PreparedKnowledgeBase, facts: Facts): Promise<RuleRun> {
+export async function runFindings(prepared: PreparedKnowledgeBase, facts: Facts): Promise<FindingRun> {
   const selected: Rule[] = []
-  const waiting: RuleRun['waiting'] = []
-  prepared.rules.forEach((rule, i) => {
-    const missing = missingFacts(rule, facts)
-    if (missing.length) waiting.push({ rule, missing })
-    else if (equalsHold(rule, facts)) selected.push(prepared.compiled[i] as Rule)
+  const settled: PreparedFinding[] = []
+  const waiting: FindingRun['waiting'] = []
+  prepared.findings.forEach((finding, i) => {
+    const missing = missingFacts(finding, facts)
+    if (missing.length) waiting.push({ finding, missing })
+    else if (!equalsHold(finding, facts)) return
+    else if (prepared.indexOnly[i]) settled.push(finding)
+    else if ((prepared.screens[i] as Screen)(facts)) selected.push(prepared.compiled[i] as Rule)
   })
-  const result = await prepared.engine.runSubset(facts, selected)
-  const fired = result.events.flatMap((e) => {
-    const rule = prepared.byId.get(String(e.params?.id))
-    return rule ? [{ rule, text: renderBecause(rule.because, facts) }] : []
-  })
-  return { fired, waiting, evaluated: selected.length }
+  const result = selected.length ? await prepared.engine.runSubset(facts, selected) : { events: [] }
+  const confirmed = new Set(result.events.map((e) => String(e.params?.id)))
+  // Keep authoring order, whichever path decided a finding.
+  const applied = prepared.findings.filter((f) => confirmed.has(f.id) || settled.includes(f))
+  return { applied, waiting, evaluated: selected.length }
 }
 
 // ------------------------------------------------------------------ rendering
@@ -136,9 +196,12 @@ export function formatFact(v: FactValue | undefined): string {
 }
 
 /** Fills `{fact}` placeholders with the values measured or derived for this case. */
-export function renderBecause(template: string, facts: Facts): string {
+export function renderText(template: string, facts: Facts): string {
   let out = template
-  for (const name of placeholdersOf(template)) out = out.replaceAll(`{${name}}`, formatFact(facts[name]))
+  for (const name of placeholdersOf(template)) {
+    const value = facts[placeholderFact(name)]
+    out = out.replaceAll(`{${name}}`, formatFact(name.startsWith(ABSOLUTE_PREFIX) && typeof value === 'number' ? Math.abs(value) : value))
+  }
   return out
 }
 
@@ -150,18 +213,23 @@ export interface WaitingReading {
   rulesWaiting: number
 }
 
+const readingKeys = new Map<string, string[]>()
+
 /** Reading keys (`quantity` or `stage:quantity`) a fact is built from; empty if no reading can supply it. */
 function readingsFor(fact: string, kind: UnitKind, stages: Set<Stage>): string[] {
+  const memo = `${fact}|${kind}|${[...stages].join(',')}`
+  const hit = readingKeys.get(memo)
+  if (hit) return hit
   const spec = FACT_SPECS.get(fact)
-  if (!spec) return []
-  const where = spec.stage ?? (spec.needsStage === 'cabinet' ? (kind === 'cascade' ? 'low' : 'single') : spec.needsStage)
-  if (where && !stages.has(where)) return []
-  return spec.needs.map((q) => (isStageQuantity(q) && where ? `${where}:${q}` : q))
+  const where = spec?.stage ?? (spec?.needsStage === 'cabinet' ? (kind === 'cascade' ? 'low' : 'single') : spec?.needsStage)
+  const keys = !spec || (where && !stages.has(where)) ? [] : spec.needs.map((q) => (isStageQuantity(q) && where ? `${where}:${q}` : q))
+  readingKeys.set(memo, keys)
+  return keys
 }
 
-/** Readings that, if measured, would let waiting rules run; ranked by how many rules wait for them. */
+/** Readings that, if measured, would let waiting findings apply; ranked by how many wait for them. */
 export function sharpenWith(
-  run: RuleRun,
+  run: FindingRun,
   present: Set<string>,
   kind: UnitKind,
   stages: Set<Stage>,
@@ -171,7 +239,6 @@ export function sharpenWith(
   const counts = new Map<string, number>()
   for (const { missing } of run.waiting) {
     const needed = new Set(missing.flatMap((f) => readingsFor(f, kind, stages)).filter((k) => !present.has(k)))
-    // A rule waiting on something no reading can supply (e.g. nameplate charge) does not count.
     const unsuppliable = missing.some((f) => cannotSupply.has(f) || readingsFor(f, kind, stages).length === 0)
     if (unsuppliable) continue
     for (const key of needed) counts.set(key, (counts.get(key) ?? 0) + 1)

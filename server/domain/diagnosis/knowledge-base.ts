@@ -1,54 +1,29 @@
 /**
- * Knowledge-base model: causes, tests and evidence rules, with zod schemas that every source
- * (content-src files, the database, an admin upload) passes before it is stored or used.
+ * Knowledge-base model: causes, tests and findings, with the zod schemas every source passes
+ * (content-src files, the database, an uploaded bundle) before it is stored or used.
  *
- * Stage addressing of rules (see content-src/README.md): `event.params.stage` is a concrete stage
- * (`high`, `low`, `single`) or a role that is expanded when a version is prepared:
- *   - `each`    → one copy per stage (restricted by the rule's optional `stages`),
- *   - `cabinet` → the stage that cools the cabinet: `low` on a cascade, `single` otherwise,
- *   - `ambient` → the stage that rejects heat to room air: `high` on a cascade, `single` otherwise.
- * `{stage}.x` in fact names and `{stage.x}` placeholders in `because` become the copy's stage (`low.x`);
- * `{@stage}`/`{@Stage}` become words ("low stage", "System").
+ * A finding is a json-rules-engine rule: its conditions say when it applies (the facts it needs are
+ * present, the compressor runs, a symptom is reported), and its event carries the likelihood
+ * specification: P(finding | hypothesis) for the hypotheses it speaks to, an explicit value for a
+ * healthy stage, a default for the causes it does not name, and `other`. Graded findings state, per
+ * hypothesis, which band of a measured residual it predicts; the ranking turns the measured value and
+ * its uncertainty into a likelihood (likelihood.ts). Stage roles are expanded in rule-expansion.ts.
  */
 import { z } from 'zod'
-import { CAUSES, STAGES, TESTS, type Cause, type Stage, type UnitKind } from '#shared/types/diagnosis'
+import { CAUSES, STAGES, TESTS, QUANTITIES, isStagelessCause, type Cause } from '#shared/types/diagnosis'
 import { causeSchema, stageSchema, testSlugSchema, wordEnum } from '#shared/schemas/diagnosis'
+import { EQUIPMENT_CLASSES } from '#shared/types/equipment'
+import { NUMERIC_OPERATORS, OPERATORS, type ConditionValue, type NestedCondition, type OperatorName, type TopCondition } from './conditions'
 import { FACT_SPECS, type FactType } from './fact-vocabulary'
+import { collectLeaves, expandRule, placeholderFact, placeholdersOf } from './rule-expansion'
+import { checkTable, tableKeyProblems, type LikelihoodTable } from './likelihood'
 
 // ---------------------------------------------------------------- conditions
 
-export const NUMERIC_OPERATORS = ['lessThan', 'lessThanInclusive', 'greaterThan', 'greaterThanInclusive'] as const
-export const RANGE_OPERATORS = ['between', 'outside', 'withinPercent', 'outsidePercent'] as const
-export const OPERATORS = ['equal', 'notEqual', 'in', 'notIn', ...NUMERIC_OPERATORS, ...RANGE_OPERATORS] as const
-export type OperatorName = (typeof OPERATORS)[number]
-
-export type ConditionValue = number | string | boolean | number[] | string[]
-
-export interface LeafCondition {
-  fact: string
-  operator: OperatorName
-  value: ConditionValue
-}
-export interface AllCondition {
-  all: NestedCondition[]
-}
-export interface AnyCondition {
-  any: NestedCondition[]
-}
-export interface NotCondition {
-  not: NestedCondition
-}
-export type TopCondition = AllCondition | AnyCondition | NotCondition
-export type NestedCondition = LeafCondition | TopCondition
+export { NUMERIC_OPERATORS, RANGE_OPERATORS, OPERATORS, type OperatorName, type ConditionValue, type LeafCondition, type AllCondition, type AnyCondition, type NotCondition, type TopCondition, type NestedCondition } from './conditions'
 
 const operatorSchema = wordEnum('operator', OPERATORS)
-const conditionValueSchema = z.union([
-  z.number().finite(),
-  z.string(),
-  z.boolean(),
-  z.array(z.number().finite()),
-  z.array(z.string()),
-])
+const conditionValueSchema = z.union([z.number().finite(), z.string(), z.boolean(), z.array(z.number().finite()), z.array(z.string())])
 
 export const leafConditionSchema = z
   .object({ fact: z.string().min(1), operator: operatorSchema, value: conditionValueSchema })
@@ -61,10 +36,11 @@ export const nestedConditionSchema: z.ZodType<NestedCondition> = z.lazy(() =>
   }),
 )
 
+/** A finding that needs nothing but its measured fact may have an empty `all`. */
 export const topConditionSchema: z.ZodType<TopCondition> = z.lazy(() =>
   z.union(
     [
-      z.object({ all: z.array(nestedConditionSchema).min(1) }).strict(),
+      z.object({ all: z.array(nestedConditionSchema) }).strict(),
       z.object({ any: z.array(nestedConditionSchema).min(1) }).strict(),
       z.object({ not: nestedConditionSchema }).strict(),
     ],
@@ -101,45 +77,69 @@ const priorWeightSchema = z.union([
 ])
 export type PriorWeight = z.infer<typeof priorWeightSchema>
 
+/**
+ * Starting weights: one per unit kind, and optionally one per equipment class (a cold room meets
+ * evaporator-fan faults more often than a lab freezer with a wall-bonded evaporator).
+ */
+const priorsSchema = z
+  .object({
+    cascade: priorWeightSchema,
+    'single-stage': priorWeightSchema,
+    classes: z.partialRecord(wordEnum('equipment class', EQUIPMENT_CLASSES), priorWeightSchema).optional(),
+  })
+  .strict()
+export type CausePriors = z.infer<typeof priorsSchema>
+
 export const causeDefSchema = z
   .object({
     slug: causeSchema,
     title: z.string().min(1),
+    /** The cause inside a sentence, lower case ("a leak", "a blockage"): next-test values are written with it. */
+    short: z.string().min(1),
     stages: z.array(stageSchema),
-    priors: z.object({ cascade: priorWeightSchema, 'single-stage': priorWeightSchema }).strict(),
+    priors: priorsSchema,
     description: z.string().min(1),
   })
   .strict()
   .superRefine((c, ctx) => {
-    if (c.slug !== 'other' && c.stages.length === 0) {
+    if (isStagelessCause(c.slug) && c.stages.length) ctx.addIssue({ code: 'custom', path: ['stages'], message: `${c.slug} belongs to no stage; leave the list empty` })
+    if (!isStagelessCause(c.slug) && c.stages.length === 0) {
       ctx.addIssue({ code: 'custom', path: ['stages'], message: 'must list at least one stage (high, low, single)' })
     }
   })
 export type CauseDef = z.infer<typeof causeDefSchema>
 
-// ---------------------------------------------------------------- tests
+// ---------------------------------------------------------------- likelihood tables
 
 const probability = z
   .number({ error: 'must be a number between 0 and 1' })
   .min(0, { error: 'must be between 0 and 1' })
   .max(1, { error: 'must be between 0 and 1' })
 
-const likelihoodsSchema = z
-  .record(z.string(), probability)
-  .superRefine((l, ctx) => {
-    for (const key of Object.keys(l)) {
-      if (!(CAUSES as readonly string[]).includes(key)) {
-        ctx.addIssue({ code: 'custom', path: [key], message: `Unknown cause "${key}"; allowed: ${CAUSES.join(', ')}` })
-      }
-    }
-    if (l.other === undefined) ctx.addIssue({ code: 'custom', path: ['other'], message: 'is required (it also stands for causes not listed)' })
+const bandWord = z.string().regex(/^[a-z][a-z-]*$/, 'must be a lower-case band name')
+/** A band name, or a mixture of bands with weights summing to 1. */
+const bandPredictionSchema = z.union([bandWord, z.record(bandWord, probability)])
+const categoricalTableSchema = z.record(z.string(), probability)
+const gradedTableSchema = z.record(z.string(), bandPredictionSchema)
+
+const tableKeysChecked = <T extends z.ZodType<LikelihoodTable>>(schema: T) =>
+  schema.superRefine((table, ctx) => {
+    for (const [path, message] of tableKeyProblems(table)) ctx.addIssue({ code: 'custom', path, message })
   })
 
+// ---------------------------------------------------------------- tests
+
 export const testOutcomeSchema = z
-  .object({ slug: z.string().regex(/^[a-z0-9-]+$/, 'must be lower-case words joined by hyphens'), label: z.string().min(1), likelihoods: likelihoodsSchema })
+  .object({
+    slug: z.string().regex(/^[a-z0-9-]+$/, 'must be lower-case words joined by hyphens'),
+    label: z.string().min(1),
+    /** The outcome settles the cause by itself (a leak found, a probe found off): the case moves to repair after it. */
+    definitive: z.boolean().optional(),
+    likelihoods: tableKeysChecked(categoricalTableSchema),
+  })
   .strict()
 
-/** Tolerance on Σ_o P(o | cause); authors write two decimals, so a little rounding is accepted. */
+/** Tolerance on Σ_o P(o | hypothesis); authors write two decimals, so a little rounding is accepted. */
 const SUM_TOLERANCE = 0.02
 
 export const testDefSchema = z
@@ -150,6 +150,17 @@ export const testDefSchema = z
     opensSystem: z.boolean(),
     hotWork: z.boolean(),
     stages: z.array(stageSchema).min(1),
+    /** A reading that gives this test's answer; the test is not proposed once that reading is in. */
+    answeredBy: wordEnum('quantity', QUANTITIES).optional(),
+    /**
+     * Findings (by rule name) that read the same measurement as this test: when one of them applies on
+     * the test's stage, the outcome adds nothing new and is not counted again. `bands` maps each outcome
+     * to the bands of those findings it agrees with, so a contradiction between the two is pointed out.
+     */
+    sameMeasurementAs: z
+      .object({ findings: z.array(z.string().regex(/^[a-z0-9-]+$/)).min(1), bands: z.record(z.string(), z.array(z.string())).optional() })
+      .strict()
+      .optional(),
     safetyNotes: z.array(z.string().min(1)),
     outcomes: z.array(testOutcomeSchema).min(2),
     procedure: z.string().min(1),
@@ -158,30 +169,61 @@ export const testDefSchema = z
   .superRefine((t, ctx) => {
     const slugs = t.outcomes.map((o) => o.slug)
     if (new Set(slugs).size !== slugs.length) ctx.addIssue({ code: 'custom', path: ['outcomes'], message: 'outcome slugs must be unique' })
-    for (const cause of CAUSES) {
-      const sum = t.outcomes.reduce((acc, o) => acc + outcomeLikelihood(o.likelihoods, cause), 0)
-      if (Math.abs(sum - 1) > SUM_TOLERANCE) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['outcomes'],
-          message: `likelihoods of ${cause} sum to ${sum.toFixed(3)} over the outcomes; they must sum to 1`,
-        })
-      }
-    }
+    for (const message of checkTable(t.outcomes.map((o) => o.likelihoods), SUM_TOLERANCE)) ctx.addIssue({ code: 'custom', path: ['outcomes'], message })
   })
 export type TestDef = z.infer<typeof testDefSchema>
 export type TestOutcomeDef = TestDef['outcomes'][number]
 
-/** A cause a test outcome does not mention behaves like `other`: the test says nothing about it. */
-export function outcomeLikelihood(likelihoods: Record<string, number>, cause: Cause): number {
-  return likelihoods[cause] ?? likelihoods.other ?? 0
-}
-
-// ---------------------------------------------------------------- rules
+// ---------------------------------------------------------------- findings
 
 export const RULE_STAGE_ROLES = ['each', 'cabinet', 'ambient'] as const
 export const RULE_STAGES = [...STAGES, ...RULE_STAGE_ROLES] as const
 export type RuleStage = (typeof RULE_STAGES)[number]
+
+const bandEdgesSchema = z.tuple([z.number().finite(), z.number().finite()])
+
+/** The measured residual a graded finding reads, the model's own spread and the bands hypotheses predict. */
+export const measureSchema = z
+  .object({
+    fact: z.string().min(1),
+    /** Fact holding the standard uncertainty of the measurement in the same unit (combined in quadrature with `sigma`). */
+    uncertainty: z.string().min(1).optional(),
+    sigma: z.number().positive(),
+    unit: z.string().min(1),
+    bands: z.record(bandWord, bandEdgesSchema),
+  })
+  .strict()
+  .superRefine((m, ctx) => {
+    const edges = Object.values(m.bands).sort((a, b) => a[0] - b[0])
+    if (edges.length < 2) ctx.addIssue({ code: 'custom', path: ['bands'], message: 'needs at least two bands' })
+    edges.forEach(([lo, hi], i) => {
+      if (!(lo < hi)) ctx.addIssue({ code: 'custom', path: ['bands'], message: `band [${lo}, ${hi}] must have low < high` })
+      const next = edges[i + 1]
+      if (next && next[0] !== hi) ctx.addIssue({ code: 'custom', path: ['bands'], message: `bands must touch: one ends at ${hi}, the next starts at ${next[0]}` })
+    })
+  })
+export type MeasureSpec = z.infer<typeof measureSchema>
+
+const findingParamsSchema = z
+  .object({
+    stage: wordEnum('rule stage', RULE_STAGES).optional(),
+    /** `stage` (default for staged findings): the finding is about the copy's stage; `unit`: about the unit as a whole. */
+    about: z.enum(['stage', 'unit'], { error: 'about must be "stage" or "unit"' }).optional(),
+    group: z.string().regex(/^[a-z{}@][a-z{}@-]*$/, 'must be lower-case words, may hold {stage}').optional(),
+    measure: measureSchema.optional(),
+    /**
+     * The finding reads a pair against the nameplate refrigerant's curve. Other graded findings about a
+     * stage whose readings fit another refrigerant are worked out with that refrigerant, so under
+     * wrong-refrigerant they read as a healthy stage would; these keep their own entry.
+     */
+    nameplateCurve: z.boolean().optional(),
+    likelihoods: z.union([categoricalTableSchema, gradedTableSchema]),
+    /** Words a person reads: one text, or one per band of a graded finding. */
+    because: z.union([z.string().min(1), z.record(bandWord, z.string().min(1))]),
+  })
+  .strict()
+  .superRefine((p, ctx) => checkFindingTable(p, ctx))
+export type FindingParams = z.infer<typeof findingParamsSchema>
 
 export const ruleDefSchema = z
   .object({
@@ -189,135 +231,36 @@ export const ruleDefSchema = z
     subject: z.string().min(1).optional(),
     stages: z.array(stageSchema).min(1).optional(),
     conditions: topConditionSchema,
-    event: z
-      .object({
-        type: z.literal('evidence', { error: 'must be "evidence"' }),
-        params: z
-          .object({
-            cause: causeSchema,
-            stage: wordEnum('rule stage', RULE_STAGES).optional(),
-            likelihoodRatio: z.number({ error: 'must be a number greater than 0' }).gt(0, { error: 'must be greater than 0' }),
-            because: z.string().min(1),
-          })
-          .strict(),
-      })
-      .strict(),
+    event: z.object({ type: z.literal('finding', { error: 'must be "finding"' }), params: findingParamsSchema }).strict(),
   })
   .strict()
   .superRefine((rule, ctx) => checkRuleFacts(rule, ctx))
 export type RuleDef = z.infer<typeof ruleDefSchema>
 
-/** A rule after stage expansion: what the engine runs and the ranking reads. */
-export interface PreparedRule {
-  /** `name` plus `@stage` for expanded copies; unique within a version. */
-  id: string
-  name: string
-  subject: string
-  cause: Cause
-  stage?: Stage
-  likelihoodRatio: number
-  because: string
-  conditions: TopCondition
-  /** Every fact the conditions read; the rule runs only when all are present. */
-  facts: string[]
-  /** `equal` tests at the top level of an `all`: the rule cannot fire unless each holds (equality index). */
-  requiredEquals: [string, string | number | boolean][]
-}
-
-interface Expansion {
-  stage?: Stage
-  kind?: UnitKind
-}
-
-const ROLE_EXPANSIONS: Record<'cabinet' | 'ambient', Expansion[]> = {
-  cabinet: [
-    { stage: 'low', kind: 'cascade' },
-    { stage: 'single', kind: 'single-stage' },
-  ],
-  ambient: [
-    { stage: 'high', kind: 'cascade' },
-    { stage: 'single', kind: 'single-stage' },
-  ],
-}
-
-function expansionsOf(rule: RuleDef): Expansion[] {
-  const stage = rule.event.params.stage
-  if (rule.event.params.cause === 'other' && stage === undefined) return [{}]
-  if (stage === undefined || stage === 'each') return (rule.stages ?? [...STAGES]).map((s) => ({ stage: s }))
-  if (stage === 'cabinet' || stage === 'ambient') {
-    return ROLE_EXPANSIONS[stage].filter((e) => !rule.stages || (e.stage && rule.stages.includes(e.stage)))
-  }
-  return [{ stage }]
-}
-
-const STAGE_WORDS: Record<Stage, [string, string]> = {
-  high: ['high stage', 'High stage'],
-  low: ['low stage', 'Low stage'],
-  single: ['system', 'System'],
-}
-
-function substituteStage(text: string, stage: Stage | undefined): string {
-  if (!stage) return text
-  return text
-    .replaceAll('{stage.', `{${stage}.`)
-    .replaceAll('{stage}', stage)
-    .replaceAll('{@stage}', STAGE_WORDS[stage][0])
-    .replaceAll('{@Stage}', STAGE_WORDS[stage][1])
-}
-
-function mapLeaves(c: NestedCondition, f: (leaf: LeafCondition) => LeafCondition): NestedCondition {
-  if ('fact' in c) return f(c)
-  if ('all' in c) return { all: c.all.map((x) => mapLeaves(x, f)) }
-  if ('any' in c) return { any: c.any.map((x) => mapLeaves(x, f)) }
-  return { not: mapLeaves(c.not, f) }
-}
-
-export function collectLeaves(c: NestedCondition, out: LeafCondition[] = []): LeafCondition[] {
-  if ('fact' in c) out.push(c)
-  else if ('all' in c) c.all.forEach((x) => collectLeaves(x, out))
-  else if ('any' in c) c.any.forEach((x) => collectLeaves(x, out))
-  else collectLeaves(c.not, out)
-  return out
-}
-
-/** Expands stage roles into concrete rules; deterministic order (authoring order, then stage order). */
-export function expandRule(rule: RuleDef): PreparedRule[] {
-  return expansionsOf(rule).map(({ stage, kind }) => {
-    const resolved = mapLeaves(rule.conditions, (leaf) => ({ ...leaf, fact: substituteStage(leaf.fact, stage) })) as TopCondition
-    const conditions: TopCondition = kind
-      ? { all: [{ fact: 'unit.kind', operator: 'equal', value: kind }, resolved] }
-      : resolved
-    const facts = [...new Set(collectLeaves(conditions).map((l) => l.fact))].sort()
-    return {
-      requiredEquals: topLevelEquals(conditions),
-      id: stage ? `${rule.name}@${stage}` : rule.name,
-      name: rule.name,
-      subject: rule.subject ?? 'general',
-      cause: rule.event.params.cause,
-      stage,
-      likelihoodRatio: rule.event.params.likelihoodRatio,
-      because: substituteStage(rule.event.params.because, stage),
-      conditions,
-      facts,
+function checkFindingTable(p: { measure?: MeasureSpec; likelihoods: Record<string, unknown>; because: string | Record<string, string> }, ctx: z.RefinementCtx): void {
+  const add = (path: (string | number)[], message: string) => ctx.addIssue({ code: 'custom', path, message })
+  for (const [path, message] of tableKeyProblems(p.likelihoods as LikelihoodTable)) add(['likelihoods', ...path], message)
+  const bands = p.measure ? new Set(Object.keys(p.measure.bands)) : undefined
+  for (const [key, value] of Object.entries(p.likelihoods)) {
+    if (!bands) {
+      if (typeof value !== 'number') add(['likelihoods', key], 'a finding without `measure` takes probabilities (numbers between 0 and 1)')
+      continue
     }
-  })
-}
-
-/** Equality tests every `all` on the path from the root must pass; `any`/`not` branches are left out. */
-function topLevelEquals(c: NestedCondition, out: [string, string | number | boolean][] = []): [string, string | number | boolean][] {
-  if ('all' in c) {
-    for (const x of c.all) {
-      if ('fact' in x && x.operator === 'equal' && !Array.isArray(x.value)) out.push([x.fact, x.value])
-      else if ('all' in x) topLevelEquals(x, out)
+    if (typeof value === 'number') {
+      add(['likelihoods', key], 'a graded finding takes a band name or a mixture of bands, not a number')
+      continue
     }
+    const mixture: Record<string, number> = typeof value === 'string' ? { [value]: 1 } : (value as Record<string, number>)
+    for (const band of Object.keys(mixture)) {
+      if (band !== 'any' && !bands.has(band)) add(['likelihoods', key], `unknown band "${band}"; bands: ${[...bands].join(', ')}, any`)
+    }
+    const sum = Object.values(mixture).reduce((a, b) => a + b, 0)
+    if (Math.abs(sum - 1) > SUM_TOLERANCE) add(['likelihoods', key], `band weights sum to ${sum.toFixed(3)}; they must sum to 1`)
   }
-  return out
-}
-
-const PLACEHOLDER = /\{([^{}]+)\}/g
-
-export function placeholdersOf(template: string): string[] {
-  return [...template.matchAll(PLACEHOLDER)].map((m) => m[1] ?? '')
+  if (typeof p.because !== 'string') {
+    if (!bands) add(['because'], 'per-band texts need a `measure`')
+    else for (const band of bands) if (!p.because[band]) add(['because', band], `text for band "${band}" is missing`)
+  }
 }
 
 const OPERATOR_FACT_TYPES: Partial<Record<OperatorName, FactType>> = {
@@ -339,6 +282,8 @@ function checkRuleFacts(rule: RuleDef, ctx: z.RefinementCtx): void {
     reported.add(message)
     ctx.addIssue({ code: 'custom', path, message })
   }
+  const params = rule.event.params
+  if (params.about === 'stage' && params.stage === undefined) report(['event', 'params', 'about'], 'a finding about a stage needs `stage` (a stage or each, cabinet, ambient)')
   for (const prepared of expandRule(rule)) {
     for (const leaf of collectLeaves(prepared.conditions)) {
       const spec = FACT_SPECS.get(leaf.fact)
@@ -352,8 +297,14 @@ function checkRuleFacts(rule: RuleDef, ctx: z.RefinementCtx): void {
         report(['conditions'], `"${leaf.fact}" is ${spec.type} but is compared with ${JSON.stringify(leaf.value)}`)
       }
     }
-    for (const ph of placeholdersOf(prepared.because)) {
-      if (!FACT_SPECS.has(ph)) report(['event', 'params', 'because'], `unknown placeholder {${ph}}`)
+    for (const fact of [prepared.measure?.fact, prepared.measure?.uncertainty]) {
+      if (fact === undefined) continue
+      const spec = FACT_SPECS.get(fact)
+      if (!spec) report(['event', 'params', 'measure'], `unknown fact "${fact}"`)
+      else if (spec.type !== 'number') report(['event', 'params', 'measure'], `"${fact}" is ${spec.type}; a measure needs a number fact`)
+    }
+    for (const text of Object.values(prepared.because)) {
+      for (const ph of placeholdersOf(text)) if (!FACT_SPECS.has(placeholderFact(ph))) report(['event', 'params', 'because'], `unknown placeholder {${ph}}`)
     }
   }
 }
@@ -383,26 +334,35 @@ export interface KnowledgeBase extends KnowledgeBaseSource {
   version: KnowledgeBaseVersion
 }
 
-/** Every contract cause and test must be defined once; every rule must point at a cause×stage that exists. */
+/** Every cause and test word must be defined once; a table key must name a cause×stage that exists. */
 function checkCrossReferences(kb: { causes: CauseDef[]; tests: TestDef[]; rules: RuleDef[] }, ctx: z.RefinementCtx): void {
   requireEachOnce(kb.causes.map((c) => c.slug), CAUSES, 'causes', ctx)
   requireEachOnce(kb.tests.map((t) => t.slug), TESTS, 'tests', ctx)
-  const causeStages = new Map(kb.causes.map((c) => [c.slug, c.stages]))
+  const causeStages = new Map<Cause, readonly string[]>(kb.causes.map((c) => [c.slug, c.stages]))
   const names = new Set<string>()
   kb.rules.forEach((rule, i) => {
     if (names.has(rule.name)) ctx.addIssue({ code: 'custom', path: ['rules', i, 'name'], message: `duplicate rule name "${rule.name}"` })
     names.add(rule.name)
-    for (const p of expandRule(rule)) {
-      if (p.cause === 'other' || !p.stage) continue
-      if (!(causeStages.get(p.cause) ?? []).includes(p.stage)) {
-        ctx.addIssue({
-          code: 'custom',
-          path: ['rules', i, 'event', 'params', 'stage'],
-          message: `cause ${p.cause} has no ${p.stage} stage (its stages: ${(causeStages.get(p.cause) ?? []).join(', ')})`,
-        })
-      }
+    for (const key of Object.keys(rule.event.params.likelihoods)) {
+      const problem = keyStageProblem(key, causeStages)
+      if (problem) ctx.addIssue({ code: 'custom', path: ['rules', i, 'event', 'params', 'likelihoods', key], message: problem })
     }
   })
+  kb.tests.forEach((t, i) => {
+    t.outcomes.forEach((o, j) => {
+      for (const key of Object.keys(o.likelihoods)) {
+        const problem = keyStageProblem(key, causeStages)
+        if (problem) ctx.addIssue({ code: 'custom', path: ['tests', i, 'outcomes', j, 'likelihoods', key], message: problem })
+      }
+    })
+  })
+}
+
+function keyStageProblem(key: string, causeStages: Map<Cause, readonly string[]>): string | undefined {
+  const [cause, stage] = key.split('@') as [Cause, string | undefined]
+  if (!stage || !(STAGES as readonly string[]).includes(stage)) return undefined
+  const stages = causeStages.get(cause) ?? []
+  return stages.includes(stage) ? undefined : `cause ${cause} has no ${stage} stage (its stages: ${stages.join(', ') || 'none'})`
 }
 
 function requireEachOnce(found: string[], words: readonly string[], field: string, ctx: z.RefinementCtx): void {
@@ -416,3 +376,4 @@ export function createKnowledgeBase(source: unknown, version: KnowledgeBaseVersi
   const parsed = knowledgeBaseSourceSchema.parse(source)
   return { ...parsed, version: knowledgeBaseVersionSchema.parse(version) }
 }
+

@@ -1,41 +1,45 @@
 /**
  * Entry point of the diagnosis domain: request in, ranked causes and next tests out.
- * Pure apart from the per-version engine cache; the API layer validates the request with
- * rankRequestSchema first and maps RankInputError to a 400.
+ * Pure apart from the per-version caches; the API layer validates the request with rankRequestSchema
+ * first and maps RankInputError to a 400. Readings and test results of the repair and verification
+ * phases are listed in `setAside` and never move the ranking.
  */
 import type { RankRequest, RankResponse, StageConfig } from '#shared/types/diagnosis'
-import { prepareKnowledgeBase, runRules, sharpenWith } from './engine'
+import { prepareKnowledgeBase, runFindings, sharpenWith } from './engine'
+import { findingContributions, modelFor, rankHypotheses, testContributions } from './evidence'
 import { deriveFacts } from './facts'
+import { unitRecordFactor } from './hypotheses'
 import type { KnowledgeBase } from './knowledge-base'
 import { proposeTests } from './next-test'
-import { rankCauses, resolveTestResults, type RankOptions } from './ranking'
+import { priorsFor, type RankOptions } from './priors'
+import { resolveTestResults } from './test-results'
 
-export { RankInputError, type LearnedCount, type RankOptions } from './ranking'
+export { confirmationIsDefinitive, RankInputError } from './test-results'
+export type { LearnedCount, RankOptions } from './priors'
 
 /** Proposals beyond the first few are never tried in practice; the list stops here. */
 export const MAX_PROPOSED_TESTS = 8
 
 export async function rankDiagnosis(kb: KnowledgeBase, request: RankRequest, options: RankOptions = {}): Promise<RankResponse> {
   const kind = request.unit.kind
-  const done = resolveTestResults(kb, kind, request.testResults)
+  const results = resolveTestResults(kb, kind, request.testResults)
   const derived = deriveFacts(request)
-  const run = await runRules(prepareKnowledgeBase(kb), derived.facts)
-  const ranking = rankCauses(kb, kind, run.fired, done, options)
-  const tests = proposeTests({
-    kb,
-    kind,
-    hypotheses: ranking.hypotheses,
-    posterior: ranking.posterior,
-    done,
-    readingsPresent: derived.readingsPresent,
-  })
+  const prepared = prepareKnowledgeBase(kb)
+  const run = await runFindings(prepared, derived.facts)
+  const model = modelFor(prepared, kb.causes, kind)
+  const factors = model.hypotheses.map((h) => unitRecordFactor(h, request.unit.stages))
+  const priors = priorsFor(kb.causes, kind, model.hypotheses, options, factors)
+  const tested = testContributions(model, results.diagnosis, run.applied, derived.facts)
+  const ranking = rankHypotheses(model, kb.causes, priors.values, [...findingContributions(model, run.applied, derived.facts), ...tested.contributions])
+  const tests = proposeTests({ kb, model, kind, posterior: ranking.posterior, done: results.diagnosis, readingsPresent: derived.readingsPresent })
   const stages = new Set(request.unit.stages.map((s) => s.stage))
   return {
     causes: ranking.causes,
     tests: tests.slice(0, MAX_PROPOSED_TESTS),
     derived: derived.derived,
-    warnings: derived.warnings,
-    priorNote: ranking.priorNote,
+    warnings: [...derived.warnings, ...tested.warnings],
+    priorNote: priors.note,
+    setAside: [...derived.setAside, ...results.setAside],
     missingReadings: sharpenWith(run, derived.readingsPresent, kind, stages, unsuppliedByStageData(request.unit.stages)),
     knowledgeBaseVersion: kb.version,
   }
@@ -49,7 +53,7 @@ function unsuppliedByStageData(stages: StageConfig[]): Set<string> {
     const fromReference = s.referenceStandingPressureKpa !== undefined && s.referenceAmbientC !== undefined
     if (!fromCharge) out.add(`${s.stage}.standingChargePercent`)
     if (fromCharge || fromReference) continue
-    for (const f of ['expectedStandingPressureKpa', 'standingRatio', 'standingPercentOfExpected', 'standingPhase']) out.add(`${s.stage}.${f}`)
+    for (const f of ['expectedStandingPressureKpa', 'standingRatio', 'standingPercentOfExpected', 'standingResidualPct', 'standingUncertaintyPct', 'standingPhase']) out.add(`${s.stage}.${f}`)
   }
   return out
 }

@@ -25,7 +25,7 @@ describe('knowledge-base import into PostgreSQL', () => {
     expect(back.rules).toEqual(source.rules)
     expect(back.tests).toEqual(source.tests)
     expect(() => knowledgeBaseSourceSchema.parse({ causes: back.causes, tests: back.tests, rules: back.rules })).not.toThrow()
-    expect(source.rules.length).toBeGreaterThanOrEqual(60)
+    expect(source.rules.length).toBeGreaterThanOrEqual(35)
   })
 
   it('keeps one published version per organisation: publishing retires the previous one', async () => {

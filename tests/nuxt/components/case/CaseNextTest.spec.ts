@@ -14,7 +14,8 @@ describe('CaseNextTest', () => {
     const wrapper = await mountSuspended(CaseNextTest, { props: { ranking, refrigerants: ['R290', 'R170'], readOnly: false } })
     expect(wrapper.get('[data-testid="next-test-title"]').text()).toBe('Standing pressure check · Low stage')
     expect(wrapper.text()).toContain('20 min')
-    expect(wrapper.text()).toContain('Separates: Refrigerant leak · Low stage · Restriction · Low stage')
+    expect(wrapper.get('[data-testid="next-test-value"]').text()).toBe('Settles a leak against a blockage on the low stage.')
+    expect(wrapper.text()).not.toContain('bit')
     const button = await vi.waitFor(() => {
       const found = wrapper.findAll('button').find((b) => b.text() === 'Below the expected pressure')
       if (!found) throw new Error('outcome buttons not shown yet')

@@ -1,0 +1,63 @@
+import { describe, expect, it } from 'vitest'
+import type { TestDef } from '#server/domain/diagnosis/knowledge-base'
+import type { KindModel } from '#server/domain/diagnosis/evidence'
+import { entropyBits, OPEN_SYSTEM_MINUTES, proposeTests, testCostMinutes } from '#server/domain/diagnosis/next-test'
+
+const fakeTest = (slug: TestDef['slug'], invasive: boolean): TestDef => ({
+  slug,
+  title: slug,
+  minutes: 10,
+  opensSystem: invasive,
+  hotWork: false,
+  stages: ['single'],
+  safetyNotes: ['x'],
+  procedure: '1. x',
+  outcomes: [
+    { slug: 'yes', label: 'yes', likelihoods: { healthy: 0.1, default: 0.1, 'refrigerant-leak': 0.9, other: 0.1 } },
+    { slug: 'no', label: 'no', likelihoods: { healthy: 0.9, default: 0.9, 'refrigerant-leak': 0.1, other: 0.9 } },
+  ],
+})
+const model = (): KindModel => ({
+  kind: 'single-stage',
+  hypotheses: [
+    { key: 'refrigerant-leak@single', cause: 'refrigerant-leak', stage: 'single' },
+    { key: 'restriction@single', cause: 'restriction', stage: 'single' },
+  ],
+  findings: new Map(),
+  tests: new Map(),
+})
+const causes = [
+  { slug: 'refrigerant-leak' as const, short: 'a leak' },
+  { slug: 'restriction' as const, short: 'a blockage' },
+]
+
+describe('next test (decision-theoretic troubleshooting, Heckerman, Breese & Rommelse 1995)', () => {
+  it('puts a test that opens the system after an equally informative one that does not, and says what it settles', () => {
+    const tests = proposeTests({
+      kb: { tests: [fakeTest('nitrogen-pressure-test', true), fakeTest('leak-search', false)], causes },
+      model: model(),
+      kind: 'single-stage',
+      posterior: [0.5, 0.5],
+      done: [],
+      readingsPresent: new Set(),
+    })
+    expect(tests.map((t) => t.test)).toEqual(['leak-search', 'nitrogen-pressure-test'])
+    expect(tests[0]?.expectedGain).toBe(tests[1]?.expectedGain)
+    expect(tests[1]?.score).toBeCloseTo(((tests[0]?.score ?? 0) * 10) / (10 + OPEN_SYSTEM_MINUTES), 10)
+    // H(0.5, 0.5) = 1 bit; each outcome leaves (0.9, 0.1): gain = 1 − H(0.9, 0.1) ≈ 0.531 bits.
+    expect(tests[0]?.expectedGain).toBeCloseTo(1 - entropyBits([0.9, 0.1]), 3)
+    expect(tests[0]?.value).toBe('Settles a leak against a blockage.')
+    expect(tests[0]?.separates.map((s) => s.cause)).toEqual(['refrigerant-leak', 'restriction'])
+  })
+
+  it('costs hot work and opening the system in minutes', () => {
+    expect(testCostMinutes({ minutes: 20, opensSystem: true, hotWork: true })).toBeGreaterThan(testCostMinutes({ minutes: 20, opensSystem: true, hotWork: false }))
+    expect(testCostMinutes({ minutes: 20, opensSystem: false, hotWork: false })).toBe(20)
+  })
+
+  it('skips a test a reading already answers, and one already done', () => {
+    const answered = { ...fakeTest('standing-pressure-check', false), answeredBy: 'standingPressure' as const }
+    const tests = proposeTests({ kb: { tests: [answered, fakeTest('leak-search', false)], causes }, model: model(), kind: 'single-stage', posterior: [0.5, 0.5], done: [], readingsPresent: new Set(['single:standingPressure']) })
+    expect(tests.map((t) => t.test)).toEqual(['leak-search'])
+  })
+})
