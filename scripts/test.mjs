@@ -15,7 +15,16 @@ const cleanups = []
 
 // Steps run asynchronously: the SMTP fake lives in this process and must keep answering while
 // the API and browser tests send mail through the app.
+// RIMECASE_TEST_STEPS=api,browser runs only the named steps (typecheck, unit, component, build, api,
+// browser) while working on one part; `npm test` and CI run them all.
+const only = (process.env.RIMECASE_TEST_STEPS ?? '').split(',').map((s) => s.trim().toLowerCase()).filter(Boolean)
+const wanted = (name) => !only.length || only.some((w) => name.toLowerCase().startsWith(w))
+
 async function runStep(name, cmd, args, env = {}) {
+  if (!wanted(name) && name !== 'build') {
+    console.log(`(skipping ${name}: RIMECASE_TEST_STEPS=${only.join(',')})`)
+    return true
+  }
   step(`Test step: ${name}`)
   const started = Date.now()
   const child = spawn(cmd, args, { cwd: ROOT, stdio: 'inherit', env: { ...process.env, ...env } })

@@ -55,7 +55,7 @@ describe('two servers on one database', () => {
   it('a case closed through one server moves the starting odds the other ranks with', async () => {
     const confirmed = async (client: ApiClient) => {
       const note = (await client.post('/api/diagnosis/rank', RANK_REQUEST)).body.priorNote as string
-      return Number(/updated with (\d+) confirmed cause/.exec(note)?.[1] ?? 0)
+      return Number(/adjusted by (\d+) definitively confirmed cause/.exec(note)?.[1] ?? 0)
     }
     const before = await confirmed(b)
     const units = (await a.get('/api/units')).body as { id: number; kind: string }[]
