@@ -19,6 +19,11 @@ const cleanups = []
 // browser) while working on one part; `npm test` and CI run them all.
 const only = (process.env.RIMECASE_TEST_STEPS ?? '').split(',').map((s) => s.trim().toLowerCase()).filter(Boolean)
 const wanted = (name) => !only.length || only.some((w) => name.toLowerCase().startsWith(w))
+// RIMECASE_TEST_FILTER=cases,report passes file filters to vitest and Playwright, to run only the
+// test files whose path contains one of them.
+const filters = (process.env.RIMECASE_TEST_FILTER ?? '').split(',').map((s) => s.trim()).filter(Boolean)
+const vitestFilters = filters.length ? ['--passWithNoTests', ...filters] : []
+const playwrightFilters = filters.length ? ['--pass-with-no-tests', ...filters] : []
 
 async function runStep(name, cmd, args, env = {}) {
   if (!wanted(name) && name !== 'build') {
@@ -59,8 +64,8 @@ async function main() {
   cleanups.push(() => db.stop())
   const common = { DATABASE_URL: db.databaseUrl, CHROMIUM_PATH: chromium }
   await runStep('typecheck', bin('nuxt'), ['typecheck'])
-  await runStep('unit tests', bin('vitest'), ['run', '--project', 'unit'], common)
-  await runStep('component tests', bin('vitest'), ['run', '--project', 'nuxt'], common)
+  await runStep('unit tests', bin('vitest'), ['run', '--project', 'unit', ...vitestFilters], common)
+  await runStep('component tests', bin('vitest'), ['run', '--project', 'nuxt', ...vitestFilters], common)
   const built = await runStep('build', process.execPath, ['-e', 'import("./scripts/lib/project.mjs").then(m => m.buildIfStale())'])
   if (!built) return
 
@@ -73,9 +78,9 @@ async function main() {
   // A second server on the same database: the cache checks change data through one and read it
   // through the other. It is stopped before the browser tests to leave them the machine.
   const second = await startServer(db)
-  await runStep('API tests', bin('vitest'), ['run', '--project', 'api'], { ...served, RIMECASE_TEST_SECOND_BASE_URL: second.baseUrl })
+  await runStep('API tests', bin('vitest'), ['run', '--project', 'api', ...vitestFilters], { ...served, RIMECASE_TEST_SECOND_BASE_URL: second.baseUrl })
   await second.stop()
-  await runStep('browser tests', bin('playwright'), ['test'], served)
+  await runStep('browser tests', bin('playwright'), ['test', ...playwrightFilters], served)
   console.log(`\nnpm test wall time: ${((Date.now() - t0) / 1000).toFixed(0)} s`)
 }
 
