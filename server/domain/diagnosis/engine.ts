@@ -213,18 +213,24 @@ export interface WaitingReading {
   rulesWaiting: number
 }
 
-const readingKeys = new Map<string, string[]>()
+/** Per unit kind and stage set: fact → reading keys, built once and kept (the fact vocabulary is fixed). */
+const readingKeys = new Map<string, Map<string, string[]>>()
 
 /** Reading keys (`quantity` or `stage:quantity`) a fact is built from; empty if no reading can supply it. */
-function readingsFor(fact: string, kind: UnitKind, stages: Set<Stage>): string[] {
-  const memo = `${fact}|${kind}|${[...stages].join(',')}`
-  const hit = readingKeys.get(memo)
-  if (hit) return hit
-  const spec = FACT_SPECS.get(fact)
-  const where = spec?.stage ?? (spec?.needsStage === 'cabinet' ? (kind === 'cascade' ? 'low' : 'single') : spec?.needsStage)
-  const keys = !spec || (where && !stages.has(where)) ? [] : spec.needs.map((q) => (isStageQuantity(q) && where ? `${where}:${q}` : q))
-  readingKeys.set(memo, keys)
-  return keys
+function readingResolver(kind: UnitKind, stages: Set<Stage>): (fact: string) => string[] {
+  const shape = `${kind}|${[...stages].sort().join(',')}`
+  let memo = readingKeys.get(shape)
+  if (!memo) readingKeys.set(shape, (memo = new Map()))
+  const known = memo
+  return (fact) => {
+    const hit = known.get(fact)
+    if (hit) return hit
+    const spec = FACT_SPECS.get(fact)
+    const where = spec?.stage ?? (spec?.needsStage === 'cabinet' ? (kind === 'cascade' ? 'low' : 'single') : spec?.needsStage)
+    const keys = !spec || (where && !stages.has(where)) ? [] : spec.needs.map((q) => (isStageQuantity(q) && where ? `${where}:${q}` : q))
+    known.set(fact, keys)
+    return keys
+  }
 }
 
 /** Readings that, if measured, would let waiting findings apply; ranked by how many wait for them. */
@@ -237,10 +243,15 @@ export function sharpenWith(
   cannotSupply: ReadonlySet<string> = new Set(),
 ): WaitingReading[] {
   const counts = new Map<string, number>()
-  for (const { missing } of run.waiting) {
-    const needed = new Set(missing.flatMap((f) => readingsFor(f, kind, stages)).filter((k) => !present.has(k)))
-    const unsuppliable = missing.some((f) => cannotSupply.has(f) || readingsFor(f, kind, stages).length === 0)
-    if (unsuppliable) continue
+  const readingsFor = readingResolver(kind, stages)
+  const needed = new Set<string>()
+  waiting: for (const { missing } of run.waiting) {
+    needed.clear()
+    for (const fact of missing) {
+      const keys = cannotSupply.has(fact) ? [] : readingsFor(fact)
+      if (!keys.length) continue waiting
+      for (const key of keys) if (!present.has(key)) needed.add(key)
+    }
     for (const key of needed) counts.set(key, (counts.get(key) ?? 0) + 1)
   }
   return [...counts.entries()]

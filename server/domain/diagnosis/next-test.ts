@@ -70,16 +70,26 @@ function expectedGain(likelihoods: Float64Array[], p: number[], hNow: number): G
   return { gain: Math.max(0, hNow - after), likelihoods }
 }
 
-/** Total-variation distance between the outcome distributions of two hypotheses. */
-function separation(g: Gain, i: number, j: number): number {
-  let tv = 0
-  let si = 0
-  let sj = 0
-  for (const row of g.likelihoods) {
-    si += row[i] ?? 0
-    sj += row[j] ?? 0
+/** Each hypothesis's outcome distribution under a test, normalised (floors make the sums differ from 1 by a hair). */
+function outcomeColumns(g: Gain, indices: number[]): Map<number, Float64Array> {
+  const columns = new Map<number, Float64Array>()
+  const outcomes = g.likelihoods.length
+  for (const i of indices) {
+    const col = new Float64Array(outcomes)
+    let sum = 0
+    for (let o = 0; o < outcomes; o++) sum += (col[o] = (g.likelihoods[o] as Float64Array)[i] ?? 0)
+    if (sum > 0) for (let o = 0; o < outcomes; o++) col[o] = (col[o] as number) / sum
+    columns.set(i, col)
   }
-  for (const row of g.likelihoods) tv += Math.abs((row[i] ?? 0) / (si || 1) - (row[j] ?? 0) / (sj || 1))
+  return columns
+}
+
+/** Total-variation distance between the outcome distributions of two hypotheses. */
+function separation(columns: Map<number, Float64Array>, i: number, j: number): number {
+  const a = columns.get(i) as Float64Array
+  const b = columns.get(j) as Float64Array
+  let tv = 0
+  for (let o = 0; o < a.length; o++) tv += Math.abs((a[o] as number) - (b[o] as number))
   return tv / 2
 }
 
@@ -90,38 +100,44 @@ function nameOf(h: Hypothesis, shortNames: Map<string, string>, withStage: boole
   return withStage && h.stage ? `${name}${STAGE_WORDS[h.stage]}` : name
 }
 
+interface Leading {
+  h: Hypothesis
+  i: number
+  p: number
+}
+
 /** "Settles a leak against a blockage on the low stage." from the best-separated pair of leading hypotheses. */
-function valueInWords(g: Gain, hyps: Hypothesis[], p: number[], shortNames: Map<string, string>): { text: string; separates: HypothesisRef[] } {
-  const leading = hyps.map((h, i) => ({ h, i })).filter(({ i }) => (p[i] ?? 0) >= NAMED_FROM)
-  let best: { a: number; b: number; score: number } | undefined
-  for (const x of leading) {
-    for (const y of leading) {
-      if (y.i <= x.i) continue
-      const score = Math.sqrt((p[x.i] ?? 0) * (p[y.i] ?? 0)) * separation(g, x.i, y.i)
-      if (!best || score > best.score) best = { a: x.i, b: y.i, score }
+function valueInWords(g: Gain, leading: Leading[], shortNames: Map<string, string>): { text: string; separates: HypothesisRef[] } {
+  const columns = outcomeColumns(g, leading.map((x) => x.i))
+  let best: { a: Leading; b: Leading; score: number } | undefined
+  for (let x = 0; x < leading.length; x++) {
+    for (let y = x + 1; y < leading.length; y++) {
+      const a = leading[x] as Leading
+      const b = leading[y] as Leading
+      const score = Math.sqrt(a.p * b.p) * separation(columns, a.i, b.i)
+      if (!best || score > best.score) best = { a, b, score }
     }
   }
   const ref = (h: Hypothesis): HypothesisRef => (h.stage ? { cause: h.cause, stage: h.stage } : { cause: h.cause })
   if (!best || best.score < 0.02) {
-    const top = leading.sort((x, y) => (p[y.i] ?? 0) - (p[x.i] ?? 0))[0]
+    const top = leading[0]
     if (!top) return { text: 'Narrows down the causes still open.', separates: [] }
     return { text: `Tells whether it is ${nameOf(top.h, shortNames, true)}.`, separates: [ref(top.h)] }
   }
-  const [first, second] = [(p[best.a] ?? 0) >= (p[best.b] ?? 0) ? best.a : best.b, (p[best.a] ?? 0) >= (p[best.b] ?? 0) ? best.b : best.a]
-  const a = hyps[first] as Hypothesis
-  const b = hyps[second] as Hypothesis
-  const sameStage = a.stage !== undefined && a.stage === b.stage
+  // `leading` is sorted by probability, so `best.a` is the likelier of the pair.
+  const { a, b } = best
+  const sameStage = a.h.stage !== undefined && a.h.stage === b.h.stage
   const text = sameStage
-    ? `Settles ${nameOf(a, shortNames, false)} against ${nameOf(b, shortNames, false)}${STAGE_WORDS[a.stage as Stage]}.`
-    : `Settles ${nameOf(a, shortNames, true)} against ${nameOf(b, shortNames, true)}.`
+    ? `Settles ${nameOf(a.h, shortNames, false)} against ${nameOf(b.h, shortNames, false)}${STAGE_WORDS[a.h.stage as Stage]}.`
+    : `Settles ${nameOf(a.h, shortNames, true)} against ${nameOf(b.h, shortNames, true)}.`
   const third = leading
-    .filter(({ i }) => i !== first && i !== second)
-    .map(({ h, i }) => ({ h, s: Math.sqrt(p[i] ?? 0) * Math.max(separation(g, i, first), separation(g, i, second)) }))
+    .filter((x) => x !== a && x !== b)
+    .map((x) => ({ h: x.h, s: Math.sqrt(x.p) * Math.max(separation(columns, x.i, a.i), separation(columns, x.i, b.i)) }))
     .sort((x, y) => y.s - x.s)
     .slice(0, SEPARATES_MAX - 2)
     .filter((x) => x.s > 0.05)
     .map((x) => ref(x.h))
-  return { text, separates: [ref(a), ref(b), ...third] }
+  return { text, separates: [ref(a.h), ref(b.h), ...third] }
 }
 
 export interface NextTestInput {
@@ -138,13 +154,18 @@ export function proposeTests({ kb, model, kind, posterior, done, readingsPresent
   const hNow = entropyBits(posterior)
   const doneKeys = new Set(done.map((d) => `${d.test.slug}@${d.stage}`))
   const shortNames = new Map(kb.causes.map((c) => [c.slug, c.short]))
+  // Hypotheses worth naming, likeliest first (ties in model order, as the pair search expects).
+  const leading = model.hypotheses
+    .map((h, i) => ({ h, i, p: posterior[i] ?? 0 }))
+    .filter((x) => x.p >= NAMED_FROM)
+    .sort((x, y) => y.p - x.p || x.i - y.i)
   const out: ProposedTest[] = []
   for (const test of kb.tests) {
     for (const stage of test.stages.filter((s) => STAGES_OF_KIND[kind].includes(s))) {
       if (doneKeys.has(`${test.slug}@${stage}`) || (test.answeredBy && readingsPresent.has(`${stage}:${test.answeredBy}`))) continue
       const g = expectedGain(testLikelihoods(model, test, stage).probs, posterior, hNow)
       if (g.gain < MIN_GAIN_BITS) continue
-      const value = valueInWords(g, model.hypotheses, posterior, shortNames)
+      const value = valueInWords(g, leading, shortNames)
       out.push({
         test: test.slug,
         stage,
