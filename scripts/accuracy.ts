@@ -17,7 +17,7 @@ import { GAS_DENSITY, INDEPENDENT, SATURATION } from '../tests/unit/shared/prope
 import { loadKnowledgeBaseFromDirectory } from '../server/domain/diagnosis/content-loader'
 import type { KnowledgeBase } from '../server/domain/diagnosis/knowledge-base'
 import { demoHistoryCounts } from '../server/db/seeders/demo-cases'
-import { HELD_OUT_SCENARIOS, TUNING_SCENARIOS, hypothesisLabel, scoreSuite, type SuiteScore } from '../tests/unit/server/domain/diagnosis/scenarios/suite'
+import { HELD_OUT_SCENARIOS, TUNING_SCENARIOS, hypothesisLabel, scoreSuite, type SuiteScore } from '../server/domain/diagnosis/scenarios/suite'
 
 function propertyTable(): string {
   const rows: string[] = [

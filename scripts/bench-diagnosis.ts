@@ -20,7 +20,7 @@ import { FACT_SPECS } from '#server/domain/diagnosis/fact-vocabulary'
 import { deriveFacts } from '#server/domain/diagnosis/facts'
 import { ruleDefSchema, type KnowledgeBase, type LeafCondition, type RuleDef } from '#server/domain/diagnosis/knowledge-base'
 import { rankDiagnosis } from '#server/domain/diagnosis/rank'
-import { HELD_OUT_SCENARIOS, TUNING_SCENARIOS } from '../tests/unit/server/domain/diagnosis/scenarios/suite'
+import { HELD_OUT_SCENARIOS, TUNING_SCENARIOS } from '../server/domain/diagnosis/scenarios/suite'
 
 const GENERATED_RULES = 2000
 

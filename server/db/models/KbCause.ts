@@ -11,6 +11,7 @@ export class KbCause extends Model<InferAttributes<KbCause>, InferCreationAttrib
   declare description: string
   declare stages: unknown
   declare priors: unknown
+  declare lockVersion: CreationOptional<number>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 
@@ -24,6 +25,7 @@ export class KbCause extends Model<InferAttributes<KbCause>, InferCreationAttrib
         description: { type: DataTypes.TEXT, allowNull: false },
         stages: { type: DataTypes.JSONB, allowNull: false },
         priors: { type: DataTypes.JSONB, allowNull: false },
+        lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -8,6 +8,8 @@ export class KbRule extends Model<InferAttributes<KbRule>, InferCreationAttribut
   declare name: string
   declare subject: string
   declare definition: unknown
+  declare lockVersion: CreationOptional<number>
+  declare examples: CreationOptional<unknown[]>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 
@@ -18,6 +20,8 @@ export class KbRule extends Model<InferAttributes<KbRule>, InferCreationAttribut
         name: { type: DataTypes.STRING(120), allowNull: false },
         subject: { type: DataTypes.STRING(80), allowNull: false },
         definition: { type: DataTypes.JSONB, allowNull: false },
+        lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        examples: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

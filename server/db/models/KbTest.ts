@@ -16,6 +16,7 @@ export class KbTest extends Model<InferAttributes<KbTest>, InferCreationAttribut
   declare sameMeasurementAs: unknown
   declare safetyNotes: unknown
   declare outcomes: unknown
+  declare lockVersion: CreationOptional<number>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 
@@ -34,6 +35,7 @@ export class KbTest extends Model<InferAttributes<KbTest>, InferCreationAttribut
         sameMeasurementAs: { type: DataTypes.JSONB, allowNull: true },
         safetyNotes: { type: DataTypes.JSONB, allowNull: false },
         outcomes: { type: DataTypes.JSONB, allowNull: false },
+        lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -4,6 +4,7 @@ import { BackgroundJob } from './BackgroundJob'
 import { CaseEvent } from './CaseEvent'
 import { Contact } from './Contact'
 import { Customer } from './Customer'
+import { KbAuditEvent } from './KbAuditEvent'
 import { KbCause } from './KbCause'
 import { KbRule } from './KbRule'
 import { KbTest } from './KbTest'
@@ -19,7 +20,7 @@ import { Upload } from './Upload'
 import { User } from './User'
 
 export {
-  BackgroundJob, CaseEvent, Contact, Customer, KbCause, KbRule, KbTest, KbVersion, Organisation, OutboundEmail,
+  BackgroundJob, CaseEvent, Contact, Customer, KbAuditEvent, KbCause, KbRule, KbTest, KbVersion, Organisation, OutboundEmail,
   RefrigerantTransaction, ServiceCase, Site, Unit, UnitStage, Upload, User,
 }
 
@@ -27,7 +28,7 @@ export {
 export function initModels(sequelize: Sequelize): void {
   for (const model of [
     Organisation, User, Customer, Site, Contact, Unit, UnitStage, KbVersion, KbCause, KbTest, KbRule,
-    ServiceCase, CaseEvent, RefrigerantTransaction, Upload, OutboundEmail, BackgroundJob,
+    ServiceCase, CaseEvent, RefrigerantTransaction, Upload, OutboundEmail, BackgroundJob, KbAuditEvent,
   ]) model.initModel(sequelize)
 
   Organisation.hasMany(User, { foreignKey: 'organisationId' })

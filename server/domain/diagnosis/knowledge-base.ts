@@ -335,7 +335,7 @@ export interface KnowledgeBase extends KnowledgeBaseSource {
 }
 
 /** Every cause and test word must be defined once; a table key must name a cause×stage that exists. */
-function checkCrossReferences(kb: { causes: CauseDef[]; tests: TestDef[]; rules: RuleDef[] }, ctx: z.RefinementCtx): void {
+export function checkCrossReferences(kb: { causes: CauseDef[]; tests: TestDef[]; rules: RuleDef[] }, ctx: z.RefinementCtx): void {
   requireEachOnce(kb.causes.map((c) => c.slug), CAUSES, 'causes', ctx)
   requireEachOnce(kb.tests.map((t) => t.slug), TESTS, 'tests', ctx)
   const causeStages = new Map<Cause, readonly string[]>(kb.causes.map((c) => [c.slug, c.stages]))

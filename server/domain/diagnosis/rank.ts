@@ -4,7 +4,7 @@
  * first and maps RankInputError to a 400. Readings and test results of the repair and verification
  * phases are listed in `setAside` and never move the ranking.
  */
-import type { RankRequest, RankResponse, StageConfig } from '#shared/types/diagnosis'
+import type { RankedCause, RankRequest, RankResponse, StageConfig } from '#shared/types/diagnosis'
 import { prepareKnowledgeBase, runFindings, sharpenWith } from './engine'
 import { findingContributions, modelFor, rankHypotheses, testContributions } from './evidence'
 import { deriveFacts } from './facts'
@@ -54,6 +54,28 @@ function unsuppliedByStageData(stages: StageConfig[]): Set<string> {
     if (!fromCharge) out.add(`${s.stage}.standingChargePercent`)
     if (fromCharge || fromReference) continue
     for (const f of ['expectedStandingPressureKpa', 'standingRatio', 'standingPercentOfExpected', 'standingResidualPct', 'standingUncertaintyPct', 'standingPhase']) out.add(`${s.stage}.${f}`)
+  }
+  return out
+}
+
+/**
+ * The ranked causes of one request under several knowledge-base versions, without the next test:
+ * what a replay of many stored cases needs. The facts are derived once and read by every version;
+ * each version's causes are exactly those rankDiagnosis gives it.
+ */
+export async function rankCauses(kbs: readonly KnowledgeBase[], request: RankRequest, options: RankOptions = {}): Promise<RankedCause[][]> {
+  const kind = request.unit.kind
+  const derived = deriveFacts(request)
+  const out: RankedCause[][] = []
+  for (const kb of kbs) {
+    const results = resolveTestResults(kb, kind, request.testResults)
+    const prepared = prepareKnowledgeBase(kb)
+    const run = await runFindings(prepared, derived.facts)
+    const model = modelFor(prepared, kb.causes, kind)
+    const factors = model.hypotheses.map((h) => unitRecordFactor(h, request.unit.stages))
+    const priors = priorsFor(kb.causes, kind, model.hypotheses, options, factors)
+    const tested = testContributions(model, results.diagnosis, run.applied, derived.facts)
+    out.push(rankHypotheses(model, kb.causes, priors.values, [...findingContributions(model, run.applied, derived.facts), ...tested.contributions]).causes)
   }
   return out
 }

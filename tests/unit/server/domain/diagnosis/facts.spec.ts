@@ -4,8 +4,8 @@ import { saturationPressure, saturationTemperature, standingPressureFromCharge }
 import { deriveFacts } from '#server/domain/diagnosis/facts'
 import { FACT_SPECS } from '#server/domain/diagnosis/fact-vocabulary'
 import { satKpa } from './scenario-helpers'
-import { buildScenario } from './scenarios/builder'
-import { healthy, withState } from './scenarios/baselines'
+import { buildScenario } from '#server/domain/diagnosis/scenarios/builder'
+import { healthy, withState } from '#server/domain/diagnosis/scenarios/baselines'
 
 const freezer = (state = healthy('freezerR290', 25)) => buildScenario({ id: 'x', title: 'x', source: 'x', unit: 'freezerR290', expected: { cause: 'other' }, state }).request
 

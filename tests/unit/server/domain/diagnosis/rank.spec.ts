@@ -2,8 +2,8 @@ import { describe, expect, it } from 'vitest'
 import type { RankRequest, RankResponse, Reading, TestResult } from '#shared/types/diagnosis'
 import { rankDiagnosis, RankInputError } from '#server/domain/diagnosis/rank'
 import { seedKb, satKpa } from './scenario-helpers'
-import { buildScenario, type ScenarioSpec } from './scenarios/builder'
-import { healthy, stopped, withState } from './scenarios/baselines'
+import { buildScenario, type ScenarioSpec } from '#server/domain/diagnosis/scenarios/builder'
+import { healthy, stopped, withState } from '#server/domain/diagnosis/scenarios/baselines'
 
 const sum = (xs: number[]) => xs.reduce((a, b) => a + b, 0)
 const label = (c: { cause: string; stage?: string }) => (c.stage ? `${c.cause}@${c.stage}` : c.cause)

@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest'
 import { demoHistoryCounts } from '#server/db/seeders/demo-cases'
 import { rankDiagnosis } from '#server/domain/diagnosis/rank'
 import { seedKb } from './scenario-helpers'
-import { HELD_OUT_SCENARIOS, TUNING_SCENARIOS, hypothesisLabel, scoreSuite } from './scenarios/suite'
+import { HELD_OUT_SCENARIOS, TUNING_SCENARIOS, hypothesisLabel, scoreSuite } from '#server/domain/diagnosis/scenarios/suite'
 
 const ALL = [...TUNING_SCENARIOS, ...HELD_OUT_SCENARIOS]
 const history = demoHistoryCounts()

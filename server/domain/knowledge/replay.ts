@@ -1,0 +1,24 @@
+/**
+ * Ranking a stored case again with a chosen knowledge-base version: the case's symptoms, readings
+ * and test results (as they stand, or as they stood at some step of its timeline) become the same
+ * rank request the case page made, and the version ranks it. Used by the impact of a draft on past
+ * cases and by replays for training.
+ */
+import { rankRequestFor, type CaseState } from '#server/domain/cases/case-record'
+import type { KnowledgeBase } from '#server/domain/diagnosis/knowledge-base'
+import { rankCauses, rankDiagnosis, type RankOptions } from '#server/domain/diagnosis/rank'
+import type { RankedCause, RankResponse } from '#shared/types/diagnosis'
+import type { UnitDto } from '#shared/types/equipment-dto'
+
+/** What of a case a replay reads. */
+export type StoredCaseFacts = Pick<CaseState, 'symptoms' | 'readings' | 'testResults'>
+
+/** The full ranking (causes, next tests, derived quantities) of a stored case's facts with `kb`. */
+export function rankStoredCase(kb: KnowledgeBase, unit: UnitDto, facts: StoredCaseFacts, options: RankOptions = {}): Promise<RankResponse> {
+  return rankDiagnosis(kb, rankRequestFor(unit, facts), { equipmentClass: unit.equipmentClass, ...options })
+}
+
+/** Only the ranked causes of a stored case's facts, with each of several versions (facts derived once). */
+export function rankStoredCaseCauses(kbs: readonly KnowledgeBase[], unit: UnitDto, facts: StoredCaseFacts, options: RankOptions = {}): Promise<RankedCause[][]> {
+  return rankCauses(kbs, rankRequestFor(unit, facts), { equipmentClass: unit.equipmentClass, ...options })
+}

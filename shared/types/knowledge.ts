@@ -1,0 +1,75 @@
+// The knowledge-base authoring API's shapes: versions, bundles' answers, impact on past cases.
+
+/** Where a version is: being edited, waiting for review, the one in use, or an older one kept as history. */
+export const KB_VERSION_STATUSES = ['draft', 'in-review', 'published', 'retired'] as const
+export type KbVersionStatus = (typeof KB_VERSION_STATUSES)[number]
+
+/** One version of the organisation's knowledge base (`GET /api/knowledge-base/versions`). */
+export interface KbVersionDto {
+  id: number
+  status: KbVersionStatus
+  label: string
+  createdAt: string
+  /** Who made it (name), null for a version made by a script. */
+  createdBy: string | null
+  createdById: number | null
+  publishedAt: string | null
+  publishedBy: string | null
+  /** The version a draft was copied from. */
+  basedOnId: number | null
+  submittedAt: string | null
+  submittedBy: string | null
+  reviewedAt: string | null
+  reviewedBy: string | null
+  /** The reviewer's comments when a draft was returned. */
+  reviewComment: string | null
+  /** Moves on with every change; edits send the revision or item version they saw. */
+  revision: number
+}
+
+/** `POST /api/knowledge-base/bundles`: the draft made from the bundle. */
+export interface ImportedBundleDto {
+  id: number
+  status: 'draft'
+}
+
+/** `POST /api/knowledge-base/versions/{id}/impact`: the job that works it out. */
+export interface ImpactJobDto {
+  jobId: string
+}
+
+export interface CauseRef {
+  cause: string
+  stage?: string
+}
+
+export interface TopShares {
+  /** Fraction of the cases whose first cause is a confirmed one (0 with no cases). */
+  top1: number
+  top3: number
+  top1Cases: number
+  top3Cases: number
+}
+
+export interface ConfusionRow {
+  /** The confirmed cause (every stage together). */
+  cause: string
+  cases: number
+  /** How many of these cases each version put which cause first. */
+  candidateFirst: Record<string, number>
+  publishedFirst: Record<string, number>
+  candidateTop1: number
+  publishedTop1: number
+}
+
+/** The result of an impact job: the candidate version against the published one on past cases. */
+export interface ImpactResult {
+  cases: number
+  candidate: TopShares
+  published: TopShares
+  /** Cases whose first cause (cause and stage) differs between the two versions, by id. */
+  changedFirst: number[]
+  confusion: ConfusionRow[]
+  candidateVersionId?: number
+  publishedVersionId?: number | null
+}
