@@ -2,6 +2,9 @@
 // the minutes the trainee's requests cost against the path the engine would have taken, and
 // invasive tests asked for without need. No I/O here.
 import type { Cause, Stage, TestSlug } from '#shared/types/diagnosis'
+import type { ExerciseScore } from '#shared/types/training'
+
+export type { ExerciseScore, StageVerdict } from '#shared/types/training'
 
 /** Minutes a reading request costs: fitting gauges or a probe and letting it settle (common practice, no source). */
 export const READING_MINUTES = 2
@@ -34,26 +37,6 @@ export interface ScoreInput {
   engineMinutes: number
   /** `test|stage` keys of the tests on the engine's path. */
   engineTests: string[]
-}
-
-export interface StageVerdict {
-  stage: Stage
-  expected: Cause
-  named: Cause | null
-  right: boolean
-}
-
-export interface ExerciseScore {
-  stages: StageVerdict[]
-  rightStages: number
-  minutesSpent: number
-  engineMinutes: number
-  needlessInvasive: { test: TestSlug; stage?: Stage }[]
-  unsafe: { test: TestSlug; stage?: Stage }[]
-  causePoints: number
-  timePoints: number
-  penalty: number
-  points: number
 }
 
 /** The expected cause of each stage: a confirmed cause on it, else a confirmed cause tied to no circuit, else no fault. */
