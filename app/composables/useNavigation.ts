@@ -13,6 +13,7 @@ const NAV_ITEMS: NavItem[] = [
   { to: '/units', label: 'Units', permission: 'equipment:read' },
   { to: '/customers', label: 'Customers', permission: 'equipment:read' },
   { to: '/calculator', label: 'Calculator', permission: 'calculator:use' },
+  { to: '/training', label: 'Training', permission: 'cases:read' },
   { to: '/admin/users', label: 'Users', permission: 'users:manage' },
   { to: '/admin/outbox', label: 'Outbox', permission: 'outbox:read' },
 ]
