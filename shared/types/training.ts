@@ -187,3 +187,30 @@ export interface AttemptDto {
   score: ExerciseScore | null
   enginePath: EngineStep[] | null
 }
+
+/** Counts of one group of confirmed cases: how many, and how many had a confirmed cause first / in the first three. */
+export interface AccuracyCell {
+  key: string
+  cases: number
+  top1: number
+  top3: number
+}
+
+/** The published knowledge base's accuracy over the organisation's confirmed cases. */
+export interface KbAccuracyDto {
+  knowledgeBaseVersion: { id: number | string; label: string }
+  overall: AccuracyCell
+  byCause: AccuracyCell[]
+  byEquipmentClass: AccuracyCell[]
+  /** `key` is the closing month, "2026-11". */
+  byMonth: AccuracyCell[]
+  /** Cases whose confirmed cause was not ranked first, newest first. */
+  wrong: {
+    caseId: number
+    unitName: string
+    closedAt: string
+    confirmed: { cause: Cause; stage?: Stage }[]
+    rankOfConfirmed: number | null
+    top: { cause: Cause; stage?: Stage; probability: number }[]
+  }[]
+}

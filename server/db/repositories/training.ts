@@ -192,3 +192,13 @@ export async function finishAttempt(id: number, answer: { stage: string; cause: 
   )
   return Number(affected) > 0
 }
+
+/** The organisation's latest closed cases with a confirmed cause: what the accuracy of a knowledge base is measured on. */
+export async function confirmedCases(organisationId: number, limit: number) {
+  return select<{ id: number; unit_id: number; symptoms: string[]; readings: unknown[]; test_results: unknown[]; confirmed_causes: { cause: string; stage?: string }[]; closed_at: Date }>(
+    `SELECT id, unit_id, symptoms, readings, test_results, confirmed_causes, closed_at FROM cases
+      WHERE organisation_id = :organisationId AND status = 'closed' AND jsonb_array_length(confirmed_causes) > 0
+      ORDER BY closed_at DESC LIMIT :limit`,
+    { organisationId, limit },
+  )
+}
