@@ -147,8 +147,3 @@ export async function diagnosisVocabulary(actor: Actor): Promise<DiagnosisVocabu
 export async function rankingTrackRecord(actor: Actor): Promise<RankingAgreement> {
   return rankingAgreement(await closedCaseRankings(actor.organisationId))
 }
-
-/** One stored version of the organisation's knowledge base, validated (any status); 503 when it cannot be read. */
-export function knowledgeBaseVersion(organisationId: number, versionId: number): Promise<KnowledgeBase> {
-  return loadKnowledgeBase(organisationId, versionId)
-}

@@ -17,7 +17,8 @@ import type { AttemptDto, ExerciseDto, ExerciseStart, ExerciseSummaryDto } from 
 import { findRefrigerant } from '#shared/utils/properties'
 import { can } from '#shared/utils/permissions'
 import { causeLabel } from '#shared/utils/vocabulary'
-import { knowledgeBaseVersion, publishedKnowledgeBase, stampsFor } from './diagnosis'
+import { publishedKnowledgeBase, stampsFor } from './diagnosis'
+import { knowledgeBaseVersion } from './replay'
 import { rankKnownFacts } from './training'
 import type { Actor } from './types'
 

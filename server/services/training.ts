@@ -1,15 +1,15 @@
 // Training: replaying a case step by step with the knowledge-base version it recorded for each step.
 import { findCase } from '#server/db/repositories/case-records'
-import { rankRequestFor } from '#server/domain/cases/case-record'
 import type { KnowledgeBase } from '#server/domain/diagnosis/knowledge-base'
-import { rankDiagnosis } from '#server/domain/diagnosis/rank'
+import { rankStoredCase } from '#server/domain/knowledge/replay'
 import { NotFoundError } from '#server/domain/errors'
 import { replayPoints, type ReplayPoint } from '#server/domain/training/replay'
 import type { RankResponse } from '#shared/types/diagnosis'
 import type { UnitDto } from '#shared/types/equipment-dto'
 import type { CaseReplayDto, ReplayStep } from '#shared/types/training'
 import { inPlainWords } from '#shared/utils/vocabulary'
-import { knowledgeBaseVersion, publishedKnowledgeBase, stampsFor } from './diagnosis'
+import { publishedKnowledgeBase, stampsFor } from './diagnosis'
+import { knowledgeBaseVersion } from './replay'
 import type { Actor } from './types'
 
 // A replayed step depends only on the version and what was known, so it is kept by both.
@@ -24,11 +24,14 @@ const EVIDENCE_PER_CAUSE = 4
  * its own case went on to confirm and gives the same steps whenever it is run.
  */
 export function rankKnownFacts(kb: KnowledgeBase, unit: UnitDto, known: Pick<ReplayPoint, 'symptoms' | 'readings' | 'testResults'>): Promise<RankResponse> {
-  const request = rankRequestFor(unit, known)
-  return replayRankings.load(`${kb.version.id}|${unit.equipmentClass}|${JSON.stringify(request)}`, async () => {
-    const ranked = await rankDiagnosis(kb, request, { equipmentClass: unit.equipmentClass })
+  const rank = async () => {
+    const ranked = await rankStoredCase(kb, unit, known)
     return { ...ranked, warnings: ranked.warnings.map(inPlainWords), priorNote: inPlainWords(ranked.priorNote) }
-  })
+  }
+  // A draft can still be edited under the same id; only versions that no longer change are kept.
+  if (kb.version.status === 'draft') return rank()
+  const facts = { kind: unit.kind, stages: unit.stages, design: unit.design, altitude: unit.siteAltitudeM, cls: unit.equipmentClass, ...known }
+  return replayRankings.load(`${kb.version.id}|${JSON.stringify(facts)}`, rank)
 }
 
 /** The version a step recorded, or the published one with a note saying so. */
