@@ -49,7 +49,7 @@ test('a trainee works an exercise on a phone: asks for a reading and a test, nam
   await expect(page.getByTestId('request')).toHaveCount(1)
   await expect(page.getByTestId('request').first()).toContainText('33 °C')
   await ask.getByText('A test').click()
-  await ask.getByLabel('Test').selectOption({ label: (await ask.getByLabel('Test').locator('option').filter({ hasText: /standing/i }).first().textContent())!.trim() })
+  await ask.getByLabel('Test', { exact: true }).selectOption({ label: (await ask.getByLabel('Test', { exact: true }).locator('option').filter({ hasText: /standing/i }).first().textContent())!.trim() })
   await ask.getByLabel('Stage').selectOption({ label: 'Low stage' })
   await ask.getByRole('button', { name: 'Ask' }).click()
   await expect(page.getByTestId('request')).toHaveCount(2)
