@@ -73,3 +73,32 @@ export interface ImpactResult {
   candidateVersionId?: number
   publishedVersionId?: number | null
 }
+
+/** One worked example of a finding as "Check" ran it. */
+export interface ExampleCheckDto {
+  finding: string
+  index: number
+  title: string
+  passed: boolean
+  problems: string[]
+}
+
+/** A scenario of the repository's suite the version does not put first. */
+export interface ScenarioFailureDto {
+  id: string
+  title: string
+  source: string
+  expected: CauseRef
+  /** Where the expected cause came (0 when not ranked at all). */
+  rank: number
+  firstThree: CauseRef[]
+  /** True when the published version ranks it first: the version under check made it worse. */
+  newFailure: boolean
+}
+
+/** `POST …/versions/{id}/check`: every example and the scenario suite against a version. */
+export interface VersionCheckDto {
+  examples: { total: number; failed: ExampleCheckDto[] }
+  scenarios: { total: number; top1: number; top2: number; publishedTop1: number | null; failures: ScenarioFailureDto[] }
+  passed: boolean
+}

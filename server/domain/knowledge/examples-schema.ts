@@ -16,6 +16,8 @@ export const findingExampleSchema = z
     title: z.string().trim().min(1, 'Give the example a title').max(200),
     /** Which copy of a finding written for several stages the example is about; absent for a unit-wide finding. */
     stage: stageSchema.optional(),
+    /** The kind of unit the facts describe; by default a cascade for a high or low stage, single-stage for `single`. */
+    unitKind: z.enum(['cascade', 'single-stage']).optional(),
     facts: z.record(z.string().min(1), factValueSchema),
     expect: z.enum(['fires', 'does-not-fire'], { error: 'expect must be "fires" or "does-not-fire"' }),
     /** Causes the finding should make more (up) or less (down) likely than the field, when it fires. */
