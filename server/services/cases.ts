@@ -8,7 +8,7 @@ import { caseUnitId, findCase, findCases, readCaseState, type LockedCase } from 
 import { appendEvents, commitIfUnchanged, insertCase, insertTransactions, saveCase } from '#server/db/repositories/case-writes'
 import { findUnit } from '#server/db/repositories/equipment'
 import { assertWritable, planAddendum, planClosing, planNote, planReadings, planSymptoms, planTestResult, type CaseChange } from '#server/domain/cases/case-changes'
-import { rankingEvents, rankRequestFor, type NewEvent } from '#server/domain/cases/case-record'
+import { rankingAsShown, rankingEvents, rankRequestFor, type NewEvent } from '#server/domain/cases/case-record'
 import { ConflictError, NotFoundError } from '#server/domain/errors'
 import type { AddReadingsInput, AddTestResultInput, CaseListQuery, CloseCaseInput, NewCaseInput, NoteInput, SetSymptomsInput } from '#shared/schemas/cases'
 import type { CaseDto, CaseListItem } from '#shared/types/cases'
@@ -46,7 +46,7 @@ export async function unitAsOf(stamps: CacheStamps, unitId: number): Promise<Uni
 async function record(actor: Actor, caseId: number, unit?: UnitDto): Promise<CaseDto> {
   const found = await findCase(actor.organisationId, caseId, unit)
   if (!found) throw new NotFoundError(CASE_NOT_FOUND)
-  return found
+  return { ...found, ranking: rankingAsShown(found.status, found.ranking) }
 }
 
 /** `GET /api/cases/{id}`: the full record of a case of the actor's organisation, or 404. */

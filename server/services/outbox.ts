@@ -6,7 +6,9 @@ import { join, resolve } from 'node:path'
 import { simpleParser, type AddressObject, type ParsedMail } from 'mailparser'
 import { sentMessageIds } from '#server/db/repositories/emails'
 import { InvalidStateError, NotFoundError } from '#server/domain/errors'
-import { isOutboxFileName, newestFirst, normaliseMessageId, outboxMessage, outboxSummary, type ParsedOutboxMail } from '#server/domain/outbox/outbox-message'
+import { isOutboxFileName, newestFirst, normaliseMessageId, outboxMatches, outboxMessage, outboxSummary, pageOf, type ParsedOutboxMail } from '#server/domain/outbox/outbox-message'
+import type { OutboxListQuery } from '#shared/schemas/outbox'
+import type { Page } from '#shared/types/equipment-dto'
 import type { OutboxMessageDto, OutboxSummaryDto } from '#shared/types/outbox'
 import type { ServedFile } from '#server/utils/file-response'
 import type { Actor } from './types'
@@ -64,16 +66,16 @@ async function loadSummary(dir: string, name: string): Promise<Stored | null> {
 
 const ownedBy = (mail: ParsedOutboxMail, ids: Set<string>) => !!mail.messageId && ids.has(normaliseMessageId(mail.messageId))
 
-/** `GET /api/outbox`: the organisation's messages in the outbox, newest first. */
-export async function listOutbox(actor: Actor): Promise<OutboxSummaryDto[]> {
+/** `GET /api/outbox`: one page of the organisation's messages matching the search, newest first. */
+export async function listOutbox(actor: Actor, query: OutboxListQuery): Promise<Page<OutboxSummaryDto>> {
   const dir = outboxDir()
   const [names, ids] = await Promise.all([storedNames(dir), sentMessageIds(actor.organisationId)])
   const items: OutboxSummaryDto[] = []
   for (const name of names) {
     const stored = await loadSummary(dir, name)
-    if (stored && ownedBy(stored.mail, ids)) items.push(outboxSummary(name, stored.mail, stored.fileDate))
+    if (stored && ownedBy(stored.mail, ids) && outboxMatches(stored.mail, query.q)) items.push(outboxSummary(name, stored.mail, stored.fileDate))
   }
-  return items.sort(newestFirst)
+  return pageOf(items.sort(newestFirst), query.page, query.pageSize)
 }
 
 // Opens a message only by a name that the folder listing itself returned.

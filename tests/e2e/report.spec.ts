@@ -31,7 +31,7 @@ test('an admin reads the report e-mail in the outbox and opens the printable rep
   await signIn(page, 'admin@rimecase.demo')
   const subject = `(case ${caseId})`
   await expect
-    .poll(async () => ((await (await page.request.get('/api/outbox')).json()) as { subject: string }[]).some((m) => m.subject.includes(subject)), { timeout: 15_000 })
+    .poll(async () => ((await (await page.request.get('/api/outbox?pageSize=100')).json()) as { items: { subject: string }[] }).items.some((m) => m.subject.includes(subject)), { timeout: 15_000 })
     .toBe(true)
 
   await page.goto('/admin/outbox')

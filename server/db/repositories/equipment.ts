@@ -2,6 +2,7 @@ import { Op, UniqueConstraintError, col, fn, where as sqlWhere, type Order, type
 import { FieldConflictError, NotFoundError } from '#server/domain/errors'
 import type { UnitInput, UnitRegisterQuery, UnitStageInput } from '#shared/schemas/equipment'
 import type { UnitDto } from '#shared/types/equipment-dto'
+import { designationsMatching } from '#shared/utils/properties'
 import { Customer, Site, Unit, UnitStage } from '../models'
 import { containsPattern, requireSite } from './customers'
 
@@ -78,7 +79,10 @@ function registerWhere(organisationId: number, f: UnitRegisterQuery): WhereOptio
   if (f.customerId) where.push({ '$site.customer_id$': f.customerId })
   if (f.q) {
     const like = { [Op.iLike]: containsPattern(f.q) }
-    const byRefrigerant = `(SELECT unit_id FROM unit_stages WHERE refrigerant ILIKE ${Unit.sequelize!.escape(containsPattern(f.q))})`
+    // A refrigerant is found by its designation or by its name ("ethylene" finds the R1150 stages).
+    const named = designationsMatching(f.q).map((d) => Unit.sequelize!.escape(d))
+    const byName = named.length ? ` OR refrigerant IN (${named.join(', ')})` : ''
+    const byRefrigerant = `(SELECT unit_id FROM unit_stages WHERE refrigerant ILIKE ${Unit.sequelize!.escape(containsPattern(f.q))}${byName})`
     where.push({
       [Op.or]: [
         { name: like }, { model: like }, { serial: like }, { location: like },

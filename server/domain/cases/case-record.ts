@@ -72,3 +72,12 @@ export function rankingEvents(previous: RankResponse | null, next: RankResponse)
   }
   return events
 }
+
+/**
+ * The ranking as a case shows it: a closed case keeps the causes as they stood when it was closed,
+ * but proposes no next test, since nobody will take one on a case that is finished.
+ */
+export function rankingAsShown(status: CaseState['status'], ranking: RankResponse | null): RankResponse | null {
+  if (!ranking || status === 'open') return ranking
+  return { ...ranking, tests: [] }
+}

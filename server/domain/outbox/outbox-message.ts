@@ -58,3 +58,19 @@ export function outboxMessage(id: string, mail: ParsedOutboxMail, fileDate: Date
 export function newestFirst(a: OutboxSummaryDto, b: OutboxSummaryDto): number {
   return b.date.localeCompare(a.date) || b.id.localeCompare(a.id)
 }
+
+/**
+ * True when every word of the search appears somewhere in the message: subject, sender, recipients,
+ * body text or an attachment's name, without regard to case ("f-204 pdf" finds a report of F-204).
+ */
+export function outboxMatches(mail: ParsedOutboxMail, q: string | undefined): boolean {
+  const words = (q ?? '').toLowerCase().split(/\s+/).filter(Boolean)
+  if (!words.length) return true
+  const haystack = [mail.subject, mail.from, mail.to, mail.text, ...mail.attachments.map((a) => a.filename)].filter(Boolean).join('\n').toLowerCase()
+  return words.every((w) => haystack.includes(w))
+}
+
+/** One page of a list, with the total of all matches. */
+export function pageOf<T>(items: T[], page: number, pageSize: number): { items: T[]; total: number; page: number; pageSize: number } {
+  return { items: items.slice((page - 1) * pageSize, page * pageSize), total: items.length, page, pageSize }
+}

@@ -186,6 +186,19 @@ export function findRefrigerant(designation: string): RefrigerantInfo | undefine
   return d ? structuredCloneInfo(INFO.get(d)!) : undefined
 }
 
+/**
+ * Designations a search text stands for: those with a word of the name starting with it ("ethylene"
+ * → R1150, "ethane" → R170 but not methane, "blend" → every blend) and the one it names with or
+ * without its hyphen ("R-1150"). Empty for fewer than three letters, so a stray letter matches nothing.
+ */
+export function designationsMatching(text: string): Designation[] {
+  const words = (s: string) => ` ${s.toLowerCase().replace(/[^a-z0-9]+/g, ' ').trim()}`
+  const q = text.trim().toLowerCase()
+  if (q.length < 3) return []
+  const named = LOWER.get(q.replace(/^r-/, 'r'))
+  return DESIGNATIONS.filter((d) => d === named || words(INFO.get(d)!.name).includes(words(q)))
+}
+
 function structuredCloneInfo(i: RefrigerantInfo): RefrigerantInfo {
   return { ...i, validRange: { ...i.validRange }, cautions: [...i.cautions], ...(i.composition ? { composition: i.composition.map((c) => ({ ...c })) } : {}) }
 }

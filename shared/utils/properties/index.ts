@@ -3,7 +3,7 @@
  * Saturation, gas density and standing-charge calculations from published reference Helmholtz equations
  * of state (coefficients as distributed in CoolProp 8.0.0, MIT licence; papers cited per fluid in data/).
  */
-export { DESIGNATIONS, findRefrigerant, isDesignation, listRefrigerants } from './fluids'
+export { DESIGNATIONS, designationsMatching, findRefrigerant, isDesignation, listRefrigerants } from './fluids'
 export type { Designation, RefrigerantFamily, RefrigerantInfo } from './fluids'
 export { OutOfRangeError, UnitError, UnknownRefrigerantError } from './errors'
 export { gasDensity, glideK, pressureFromDensity, saturatedLiquidDensity, saturationPressure, saturationTemperature } from './properties'

@@ -50,6 +50,10 @@ describe('case record through the contract routes', () => {
     })
     expect(closed.status).toBe(200)
     expect(closed.body.status).toBe('closed')
+    // A closed case keeps its last causes but proposes no next test, also when read again.
+    expect(closed.body.ranking.causes[0]).toMatchObject({ cause: 'refrigerant-leak', stage: 'low' })
+    expect(closed.body.ranking.tests).toEqual([])
+    expect((await tech.get(`/api/cases/${id}`)).body.ranking.tests).toEqual([])
     expect(closed.body.transactions).toEqual([expect.objectContaining({ stage: 'low', refrigerant: 'R170', grams: 180, direction: 'added', cylinder: 'ETH-0042' })])
 
     expect((await tech.post(`/api/cases/${id}/readings`, { readings: [{ quantity: 'cabinetTemperature', value: -79, unit: 'C' }] })).status).toBe(409)

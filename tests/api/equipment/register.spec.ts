@@ -52,8 +52,17 @@ describe('the paginated register (GET /api/equipment/units)', () => {
     expect((await list(`q=${group}-3`)).items.map((u) => u.name)).toEqual(['Bravo'])
     expect((await list('q=r14')).items.map((u) => u.name)).toEqual(['Charlie'])
     expect((await list('q=%25')).total).toBe(0)
+    // A refrigerant is found by its name as well as its designation, with or without the hyphen.
+    expect((await list('q=tetrafluoromethane')).items.map((u) => u.name)).toEqual(['Charlie'])
+    expect((await list('q=R-14')).items.map((u) => u.name)).toEqual(['Charlie'])
     const everywhere = await tech.get(`/api/equipment/units?q=${encodeURIComponent(`Register customer ${group}`)}`)
     expect(everywhere.body.total).toBe(3)
+  })
+
+  it('finds the units with an ethylene stage when searching for "ethylene"', async () => {
+    const found = (await tech.get('/api/equipment/units?q=ethylene&pageSize=100')).body as { total: number; items: Row[] }
+    expect(found.total).toBeGreaterThan(0)
+    for (const u of found.items) expect(u.stages.map((s) => s.refrigerant)).toContain('R1150')
   })
 
   it('pages with a total of all matches', async () => {

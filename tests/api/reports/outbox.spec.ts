@@ -14,10 +14,10 @@ async function waitForMessage(admin: ApiClient, subjectPart: string, timeoutMs =
   const until = Date.now() + timeoutMs
   let seen: string[] = []
   while (Date.now() < until) {
-    const list = await admin.get<Summary[]>('/api/outbox')
-    const found = list.body.find((m) => m.subject.includes(subjectPart))
+    const list = await admin.get<{ items: Summary[] }>(`/api/outbox?q=${encodeURIComponent(subjectPart)}`)
+    const found = list.body.items.find((m) => m.subject.includes(subjectPart))
     if (found) return found
-    seen = list.body.map((m) => m.subject)
+    seen = list.body.items.map((m) => m.subject)
     await new Promise((resolve) => setTimeout(resolve, 250))
   }
   throw new Error(`no message with "${subjectPart}" in the outbox after ${timeoutMs} ms; it holds: ${JSON.stringify(seen)}`)
@@ -51,6 +51,32 @@ describe('report e-mail and the outbox', () => {
     expect(record.emails.every((e: { status: string }) => e.status === 'sent')).toBe(true)
     const retry = await tech.post(`/api/emails/${record.emails[0].id}/retry`)
     expect(retry.status).toBe(409)
+  })
+
+  it('pages and searches on the server: subject, addresses and attachment names, newest first', async () => {
+    const tech = await signedIn(DEMO.tech)
+    const first = await openCase(tech, 'Outbox paging check one')
+    await closeCase(tech, first.id)
+    const second = await openCase(tech, 'Outbox paging check two')
+    await closeCase(tech, second.id)
+    const admin = await signedIn(DEMO.admin)
+    await waitForMessage(admin, `(case ${first.id})`)
+    await waitForMessage(admin, `(case ${second.id})`)
+
+    const all = (await admin.get('/api/outbox?pageSize=100')).body as { items: Summary[]; total: number; page: number; pageSize: number }
+    expect(all).toMatchObject({ page: 1, pageSize: 100 })
+    expect(all.total).toBeGreaterThanOrEqual(2)
+    const onePerPage = (await admin.get('/api/outbox?pageSize=1&page=2')).body as { items: Summary[]; total: number }
+    expect(onePerPage.total).toBe(all.total)
+    expect(onePerPage.items.map((m) => m.id)).toEqual([all.items[1]!.id])
+
+    const byAttachment = (await admin.get(`/api/outbox?q=${encodeURIComponent(`rimecase-case-${first.id}-report.pdf`)}`)).body as { items: Summary[]; total: number }
+    expect(byAttachment.total).toBeGreaterThan(0)
+    expect(byAttachment.items.every((m) => m.subject.includes(`(case ${first.id})`))).toBe(true)
+    // Every word must appear: this case's number and a word no message holds find nothing.
+    expect((await admin.get(`/api/outbox?q=${encodeURIComponent(`case ${first.id} zzqx-none`)}`)).body.total).toBe(0)
+    expect((await admin.get('/api/outbox?page=0')).status).toBe(400)
+    expect((await admin.get('/api/outbox?pageSize=1000')).status).toBe(400)
   })
 
   it('is for admins only and opens nothing outside the outbox folder', async () => {

@@ -74,7 +74,7 @@ describe('people\'s words only', () => {
     const until = Date.now() + 20_000
     let message: { id: string } | undefined
     while (!message && Date.now() < until) {
-      const list = (await admin.get('/api/outbox')).body as { id: string; to: string; subject: string }[]
+      const list = ((await admin.get('/api/outbox?pageSize=100')).body as { items: { id: string; to: string; subject: string }[] }).items
       message = list.find((m) => m.to.includes('words.check@example.test') && m.subject.includes(`(case ${demoCase.id})`))
       if (!message) await new Promise((resolve) => setTimeout(resolve, 250))
     }

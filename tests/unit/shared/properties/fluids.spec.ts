@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { DESIGNATIONS, findRefrigerant, isDesignation, listRefrigerants, saturationPressure, saturationTemperature } from '#shared/utils/properties'
+import { DESIGNATIONS, designationsMatching, findRefrigerant, isDesignation, listRefrigerants, saturationPressure, saturationTemperature } from '#shared/utils/properties'
 
 describe('refrigerant catalogue', () => {
   it('lists every designation once, in order', () => {
@@ -18,6 +18,18 @@ describe('refrigerant catalogue', () => {
     expect(findRefrigerant('R999')).toBeUndefined()
     expect(isDesignation('R23')).toBe(true)
     expect(isDesignation('r23')).toBe(false)
+  })
+
+  it('turns a search text into the designations it names, by chemical name or hyphenated designation', () => {
+    expect(designationsMatching('ethylene')).toEqual(['R1150'])
+    expect(designationsMatching('Ethane')).toEqual(['R170'])
+    expect(designationsMatching('propane')).toEqual(['R290'])
+    expect(designationsMatching('R-1150')).toEqual(['R1150'])
+    expect(designationsMatching('azeotropic')).toEqual(['R508B', 'R503', 'R507A'].sort((a, b) => DESIGNATIONS.indexOf(a as never) - DESIGNATIONS.indexOf(b as never)))
+    expect(designationsMatching('methane')).toEqual(['R50'])
+    expect(designationsMatching('carbon dioxide')).toEqual(['R744'])
+    expect(designationsMatching('et')).toEqual([])
+    expect(designationsMatching('freezer')).toEqual([])
   })
 
   it('critical points: EOS values (Span & Wagner 1996 CO2 304.128 K / 7.3773 MPa; Platzer 1990 R14 EOS critical point 227.40 K / 3.7625 MPa, CoolProp 8.0.0)', () => {

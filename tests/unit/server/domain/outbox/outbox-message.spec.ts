@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { isOutboxFileName, newestFirst, normaliseMessageId, outboxMessage, outboxSummary } from '#server/domain/outbox/outbox-message'
+import { isOutboxFileName, newestFirst, normaliseMessageId, outboxMatches, outboxMessage, outboxSummary, pageOf } from '#server/domain/outbox/outbox-message'
 
 describe('outbox file names', () => {
   it('accepts only bare .eml names of the SMTP fake', () => {
@@ -36,5 +36,20 @@ describe('outbox messages', () => {
     const b = outboxSummary('b.eml', { ...mail, date: new Date('2026-02-01') }, fileDate)
     expect([a, b].sort(newestFirst).map((m) => m.id)).toEqual(['b.eml', 'a.eml'])
     expect(normaliseMessageId('<ABC@Host>')).toBe(normaliseMessageId('abc@host'))
+  })
+
+  it('matches a search when every word appears in the subject, addresses, text or an attachment name', () => {
+    expect(outboxMatches(mail, undefined)).toBe(true)
+    expect(outboxMatches(mail, '  ')).toBe(true)
+    expect(outboxMatches(mail, 'SERVICE')).toBe(true)
+    expect(outboxMatches(mail, 'b@x r.pdf hello')).toBe(true)
+    expect(outboxMatches(mail, 'service invoice')).toBe(false)
+  })
+
+  it('cuts a page out of the list and keeps the total of all matches', () => {
+    const items = Array.from({ length: 45 }, (_, i) => i)
+    expect(pageOf(items, 1, 20)).toEqual({ items: items.slice(0, 20), total: 45, page: 1, pageSize: 20 })
+    expect(pageOf(items, 3, 20).items).toEqual([40, 41, 42, 43, 44])
+    expect(pageOf(items, 4, 20).items).toEqual([])
   })
 })
