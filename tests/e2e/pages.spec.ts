@@ -64,7 +64,8 @@ async function seriousAxe(page: Page) {
 
 for (const [size, viewport] of Object.entries(SIZES)) {
   test(`every page opens at ${size} size (${viewport.width}×${viewport.height}) without a hydration mismatch or a console error`, async ({ page }) => {
-    test.setTimeout(240_000)
+    // Fourteen pages, each checked by axe twice: minutes on a busy two-core machine.
+    test.setTimeout(600_000)
     await page.setViewportSize(viewport)
     const problems: string[] = []
     let current = ''
