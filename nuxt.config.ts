@@ -29,6 +29,8 @@ export default defineNuxtConfig({
     s3: { accessKeyId: '', secretAccessKey: '', endpoint: '', bucket: '', region: '' },
     smtp: { host: '127.0.0.1', port: 2525, from: 'Rimecase <reports@rimecase.local>', outboxDir: '.data/outbox' },
     testRoutes: false,
+    // The address people reach the site at (NUXT_SITE_URL), e.g. https://rimecase.example.org: an https address makes the session cookie Secure, and its origin may send writes.
+    siteUrl: '',
     session: { cookie: { secure: false }, maxAge: 60 * 60 * 12 },
   },
   nitro: {

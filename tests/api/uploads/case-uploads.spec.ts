@@ -70,7 +70,7 @@ describe('uploading to a case', () => {
     expect(res.body.message).toMatch(/10 MB/)
   })
 
-  it('answers 400 with a clear message for an empty, missing or mislabelled file', async () => {
+  it('answers 400 with a clear message for an empty, missing or mislabelled file (415 for a body that is not a form)', async () => {
     const empty = await tech.post(`/api/cases/${caseId}/uploads`, fileForm(new Uint8Array(0), 'empty.png', 'image/png'))
     expect(empty.status).toBe(400)
     expect(empty.body.message).toMatch(/empty/)
@@ -80,7 +80,7 @@ describe('uploading to a case', () => {
     expect(missing.status).toBe(400)
     expect(missing.body.message).toMatch(/No file/)
     const json = await tech.post(`/api/cases/${caseId}/uploads`, { file: 'not a file' })
-    expect(json.status).toBe(400)
+    expect(json.status).toBe(415)
     expect(json.body.message).toMatch(/multipart\/form-data/)
     const badPurpose = await tech.post(`/api/cases/${caseId}/uploads`, fileForm(png, 'a.png', 'image/png', 'selfie'))
     expect(badPurpose.status).toBe(400)
