@@ -29,6 +29,7 @@ export const RECORD_TABLES = {
   emails: { table: 'outbound_emails', id: 'integer' },
   users: { table: 'users', id: 'integer' },
   jobs: { table: 'background_jobs', id: 'uuid' },
+  'kb-versions': { table: 'kb_versions', id: 'integer' },
 } as const
 
 export type RecordTableKind = keyof typeof RECORD_TABLES
@@ -47,6 +48,8 @@ export interface RouteRule {
 export const MAX_JSON_BYTES = 1024 * 1024
 /** Multipart bodies: one file of at most 10 MB and its form fields. */
 export const MAX_UPLOAD_BYTES = 11 * 1024 * 1024
+/** A whole knowledge base as one JSON bundle. */
+export const MAX_BUNDLE_BYTES = 8 * 1024 * 1024
 
 export const ROUTE_RULES = {
   // Signing in and out, and the session module's own routes.
@@ -92,6 +95,7 @@ export const ROUTE_RULES = {
   'POST /api/cases/[id]/report/send': { allow: 'cases:work', records: { id: 'cases' } },
   'POST /api/emails/[id]/retry': { allow: 'cases:work', records: { id: 'emails' }, body: 'none' },
   'GET /api/people': { allow: 'cases:read' },
+  'GET /api/cases/[id]/replay': { allow: 'training:run', records: { id: 'cases' } },
 
   // The equipment register.
   'GET /api/customers': { allow: 'equipment:read' },
@@ -121,6 +125,13 @@ export const ROUTE_RULES = {
   'GET /api/diagnosis/tests': { allow: 'knowledge:read' },
   'GET /api/diagnosis/titles': { allow: 'knowledge:read' },
   'GET /api/diagnosis/vocabulary': { allow: 'knowledge:read' },
+
+  // Knowledge-base authoring.
+  'GET /api/knowledge-base/versions': { allow: 'knowledge:author' },
+  'GET /api/knowledge-base/versions/[id]': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
+  'GET /api/knowledge-base/versions/[id]/bundle': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
+  'POST /api/knowledge-base/versions/[id]/impact': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
+  'POST /api/knowledge-base/bundles': { allow: 'knowledge:author', maxBytes: MAX_BUNDLE_BYTES },
 
   // Background jobs and the mail outbox.
   'GET /api/jobs/[id]': { allow: 'signed-in', records: { id: 'jobs' } },

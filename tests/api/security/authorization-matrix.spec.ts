@@ -87,7 +87,7 @@ beforeAll(async () => {
   ownRecords.cases = String(opened.id)
   ownRecords.units = String(opened.unitId)
   ownRecords.uploads = String(photo.body.id)
-  for (const kind of ['sites', 'customers', 'users', 'emails', 'jobs'] as const) {
+  for (const kind of ['sites', 'customers', 'users', 'emails', 'jobs', 'kb-versions'] as const) {
     const row = await one<{ id: string | number }>(`SELECT id FROM ${RECORD_TABLES[kind].table} WHERE organisation_id = $1 ORDER BY created_at DESC LIMIT 1`, [ownOrg])
     ownRecords[kind] = String(row!.id)
   }
