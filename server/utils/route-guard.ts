@@ -12,7 +12,7 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
 const NOT_FOUND_WORDS: Partial<Record<RecordKind, string>> = {
   cases: 'Case not found', units: 'Unit not found', sites: 'Site not found', customers: 'Customer not found',
   contacts: 'Contact not found', uploads: 'Upload not found', emails: 'E-mail not found', users: 'User not found', jobs: 'Job not found',
-  'kb-versions': 'Knowledge-base version not found',
+  'kb-versions': 'Knowledge-base version not found', exercises: 'Exercise not found', 'exercise-attempts': 'Attempt not found',
 }
 
 /**

@@ -12,7 +12,10 @@
 //   records each [param] of the path: the kind of record it names. Kinds in RECORD_TABLES are
 //           looked up in the caller's organisation before the handler runs (another organisation's
 //           record, or an id beyond the column's range, is a 404); 'outbox-message' is checked by its
-//           service; 'global' names shared reference data and 'index' a position within the record.
+//           service; 'global' names shared reference data and 'index' a key or position within the
+//           record named before it (its service answers 404 for one that is not there).
+//   personal  true when the service further limits the record to the person it belongs to (and
+//           trainers): within the organisation others get 404, or 403 for what only the owner may do.
 //   body    for POST, PUT, PATCH and DELETE: 'json' (default), 'multipart' (file uploads) or 'none'.
 //           A body of another type is refused with 415, a JSON body over MAX_JSON_BYTES with 413.
 //   maxBytes  a larger limit for this route's body (uploads).
@@ -30,6 +33,8 @@ export const RECORD_TABLES = {
   users: { table: 'users', id: 'integer' },
   jobs: { table: 'background_jobs', id: 'uuid' },
   'kb-versions': { table: 'kb_versions', id: 'integer' },
+  exercises: { table: 'exercises', id: 'integer' },
+  'exercise-attempts': { table: 'exercise_attempts', id: 'integer' },
 } as const
 
 export type RecordTableKind = keyof typeof RECORD_TABLES
@@ -40,6 +45,7 @@ export interface RouteRule {
   records?: Readonly<Record<string, RecordKind>>
   body?: 'json' | 'multipart' | 'none'
   maxBytes?: number
+  personal?: boolean
   /** Set for a route a module registers instead of a file under server/api. */
   providedBy?: string
 }
@@ -130,8 +136,35 @@ export const ROUTE_RULES = {
   'GET /api/knowledge-base/versions': { allow: 'knowledge:author' },
   'GET /api/knowledge-base/versions/[id]': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
   'GET /api/knowledge-base/versions/[id]/bundle': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
-  'POST /api/knowledge-base/versions/[id]/impact': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
+  'POST /api/knowledge-base/versions/[id]/impact': { allow: 'knowledge:author', records: { id: 'kb-versions' }, body: 'none' },
   'POST /api/knowledge-base/bundles': { allow: 'knowledge:author', maxBytes: MAX_BUNDLE_BYTES },
+  'POST /api/knowledge-base/versions': { allow: 'knowledge:author' },
+  'GET /api/knowledge-base/audit': { allow: 'knowledge:author' },
+  'GET /api/knowledge-base/versions/[id]/content': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
+  'GET /api/knowledge-base/versions/[id]/diff': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
+  'POST /api/knowledge-base/versions/[id]/check': { allow: 'knowledge:author', records: { id: 'kb-versions' }, body: 'none' },
+  'POST /api/knowledge-base/versions/[id]/submit': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
+  'POST /api/knowledge-base/versions/[id]/review': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
+  'POST /api/knowledge-base/versions/[id]/publish': { allow: 'knowledge:author', records: { id: 'kb-versions' }, body: 'none' },
+  'PUT /api/knowledge-base/versions/[id]/causes/[key]': { allow: 'knowledge:author', records: { id: 'kb-versions', key: 'index' } },
+  'PUT /api/knowledge-base/versions/[id]/tests/[key]': { allow: 'knowledge:author', records: { id: 'kb-versions', key: 'index' } },
+  'POST /api/knowledge-base/versions/[id]/findings': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
+  'PUT /api/knowledge-base/versions/[id]/findings/[key]': { allow: 'knowledge:author', records: { id: 'kb-versions', key: 'index' } },
+  'DELETE /api/knowledge-base/versions/[id]/findings/[key]': { allow: 'knowledge:author', records: { id: 'kb-versions', key: 'index' }, body: 'none' },
+
+  // Training.
+  'GET /api/exercises': { allow: 'cases:read' },
+  'POST /api/exercises': { allow: 'training:run' },
+  'GET /api/exercises/[id]': { allow: 'cases:read', records: { id: 'exercises' } },
+  'PATCH /api/exercises/[id]': { allow: 'training:run', records: { id: 'exercises' } },
+  'PUT /api/exercises/[id]/assignees': { allow: 'training:run', records: { id: 'exercises' } },
+  'GET /api/exercises/[id]/attempts': { allow: 'cases:read', records: { id: 'exercises' } },
+  'POST /api/exercises/[id]/attempts': { allow: 'cases:read', records: { id: 'exercises' }, body: 'none' },
+  'GET /api/exercise-attempts': { allow: 'cases:read' },
+  'GET /api/exercise-attempts/[id]': { allow: 'cases:read', records: { id: 'exercise-attempts' }, personal: true },
+  'POST /api/exercise-attempts/[id]/requests': { allow: 'cases:read', records: { id: 'exercise-attempts' }, personal: true },
+  'POST /api/exercise-attempts/[id]/answer': { allow: 'cases:read', records: { id: 'exercise-attempts' }, personal: true },
+  'POST /api/training/accuracy': { allow: 'training:run', body: 'none' },
 
   // Background jobs and the mail outbox.
   'GET /api/jobs/[id]': { allow: 'signed-in', records: { id: 'jobs' } },
