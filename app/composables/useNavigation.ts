@@ -12,6 +12,8 @@ const NAV_ITEMS: NavItem[] = [
   { to: '/cases', label: 'Cases', permission: 'cases:read' },
   { to: '/units', label: 'Units', permission: 'equipment:read' },
   { to: '/customers', label: 'Customers', permission: 'equipment:read' },
+  { to: '/compliance', label: 'Compliance', permission: 'equipment:read' },
+  { to: '/cylinders', label: 'Cylinders', permission: 'equipment:read' },
   { to: '/calculator', label: 'Calculator', permission: 'calculator:use' },
   { to: '/training', label: 'Training', permission: 'cases:read' },
   { to: '/admin/users', label: 'Users', permission: 'users:manage' },

@@ -16,6 +16,7 @@ export const PERMISSIONS = {
   'training:run': ['trainer', 'engineer', 'admin'],
   'users:manage': ['admin'],
   'outbox:read': ['admin'],
+  'compliance:configure': ['admin'],
 } as const satisfies Record<string, readonly Role[]>
 
 export type Permission = keyof typeof PERMISSIONS

@@ -6,7 +6,7 @@ import type { Unit } from './Unit'
 export class RefrigerantTransaction extends Model<InferAttributes<RefrigerantTransaction>, InferCreationAttributes<RefrigerantTransaction>> {
   declare id: CreationOptional<number>
   declare organisationId: number
-  declare caseId: ForeignKey<ServiceCase['id']>
+  declare caseId: ForeignKey<ServiceCase['id']> | null
   declare unitId: ForeignKey<Unit['id']>
   declare stage: string
   declare refrigerant: string
@@ -14,6 +14,10 @@ export class RefrigerantTransaction extends Model<InferAttributes<RefrigerantTra
   declare direction: 'added' | 'recovered'
   declare cylinder: CreationOptional<string>
   declare at: CreationOptional<Date>
+  declare cylinderId: CreationOptional<number | null>
+  /** Why refrigerant was added (top-up, recharge, initial charge, retrofit, seasonal variance), when said. */
+  declare purpose: CreationOptional<string | null>
+  declare note: CreationOptional<string>
   declare byUserId: number | null
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
@@ -30,6 +34,9 @@ export class RefrigerantTransaction extends Model<InferAttributes<RefrigerantTra
         cylinder: { type: DataTypes.STRING(80), allowNull: false, defaultValue: '' },
         at: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
         byUserId: { type: DataTypes.INTEGER, allowNull: true },
+        cylinderId: { type: DataTypes.INTEGER, allowNull: true },
+        purpose: { type: DataTypes.STRING(20), allowNull: true },
+        note: { type: DataTypes.STRING(500), allowNull: false, defaultValue: '' },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -2,13 +2,17 @@
 import type { Sequelize } from 'sequelize'
 import { BackgroundJob } from './BackgroundJob'
 import { CaseEvent } from './CaseEvent'
+import { ComplianceCheck } from './ComplianceCheck'
 import { Contact } from './Contact'
 import { Customer } from './Customer'
+import { Cylinder } from './Cylinder'
 import { KbAuditEvent } from './KbAuditEvent'
 import { KbCause } from './KbCause'
 import { KbRule } from './KbRule'
 import { KbTest } from './KbTest'
 import { KbVersion } from './KbVersion'
+import { LoggerFile } from './LoggerFile'
+import { LoggerMapping } from './LoggerMapping'
 import { Organisation } from './Organisation'
 import { OutboundEmail } from './OutboundEmail'
 import { RefrigerantTransaction } from './RefrigerantTransaction'
@@ -21,7 +25,7 @@ import { User } from './User'
 
 export {
   BackgroundJob, CaseEvent, Contact, Customer, KbAuditEvent, KbCause, KbRule, KbTest, KbVersion, Organisation, OutboundEmail,
-  RefrigerantTransaction, ServiceCase, Site, Unit, UnitStage, Upload, User,
+  RefrigerantTransaction, ServiceCase, Site, Unit, UnitStage, Upload, User, Cylinder, ComplianceCheck, LoggerFile, LoggerMapping,
 }
 
 /** Initialises all models on `sequelize` and wires their associations. */
@@ -29,6 +33,7 @@ export function initModels(sequelize: Sequelize): void {
   for (const model of [
     Organisation, User, Customer, Site, Contact, Unit, UnitStage, KbVersion, KbCause, KbTest, KbRule,
     ServiceCase, CaseEvent, RefrigerantTransaction, Upload, OutboundEmail, BackgroundJob, KbAuditEvent,
+    Cylinder, ComplianceCheck, LoggerFile, LoggerMapping,
   ]) model.initModel(sequelize)
 
   Organisation.hasMany(User, { foreignKey: 'organisationId' })

@@ -6,6 +6,7 @@ import type { Symptom } from '#shared/types/diagnosis'
 import type { CaseFieldChanges } from '#server/domain/cases/case-changes'
 import type { NewEvent } from '#server/domain/cases/case-record'
 import { CaseEvent, RefrigerantTransaction, ServiceCase } from '../models'
+import { linkCylinders } from './refrigerant-log'
 
 /** Opens a case on a unit of the organisation; returns its id. */
 export async function insertCase(
@@ -91,5 +92,7 @@ export async function insertTransactions(
     items.map((t) => ({ ...base, stage: t.stage, refrigerant: t.refrigerant, grams: t.grams, direction: t.direction, cylinder: t.cylinder, at: base.at ?? new Date() })),
     { transaction },
   )
+  // The cylinders named become records, so recovered refrigerant can be followed to its cylinder.
+  if (items.some((t) => t.cylinder.trim())) await linkCylinders(base.organisationId, transaction)
 }
 

@@ -15,15 +15,14 @@
  */
 import type { ApplianceType, LeakRateAssessmentDto, LeakRateMethod } from '#shared/types/compliance'
 import type { Stage } from '#shared/types/diagnosis'
+import type { AdditionPurpose, CheckKind } from '#shared/types/refrigerant-log'
 import { BadInputError } from '#server/domain/errors'
 import { dayNumber, instant, isoDay } from './calendar'
 import { MAX_ANNUALIZING_DAYS, assessLeakRate } from './leak-rate'
 import { canonicalDesignation } from './substances'
 import { clean, figure } from './words'
 
-/** Why refrigerant was added; the first charge, a retrofit and seasonal variance get no leak rate. */
-export const ADDITION_PURPOSES = ['top-up', 'recharge', 'initial-charge', 'retrofit', 'seasonal-variance'] as const
-export type AdditionPurpose = (typeof ADDITION_PURPOSES)[number]
+export { ADDITION_PURPOSES, CHECK_KINDS, type AdditionPurpose, type CheckKind } from '#shared/types/refrigerant-log'
 
 /** One line of the log as the case record keeps it. */
 export interface LogTransaction {
@@ -40,9 +39,6 @@ export interface LogTransaction {
   purpose?: AdditionPurpose | null
 }
 
-/** Leak checks, repairs, verification tests and reports a log can record beside its transactions. */
-export const CHECK_KINDS = ['leak-check', 'repair', 'initial-verification', 'follow-up-verification', 'chronic-leak-report'] as const
-export type CheckKind = (typeof CHECK_KINDS)[number]
 
 /** A leak check, repair, verification test or report, with its outcome. */
 export interface LogCheck {
