@@ -13,11 +13,12 @@ test('a technician opens a unit\'s refrigerant log, sees its F-gas view and logs
   await expect(page.getByRole('article', { name: /517\/2014/ })).toContainText('t')
 
   const label = `E2E-REC-${Date.now().toString(36).toUpperCase()}`
-  await page.getByLabel('Stage', { exact: true }).first().selectOption({ index: 1 })
-  await page.getByLabel('Added or recovered').selectOption('recovered')
-  await page.getByLabel('Grams').fill('120')
-  await page.getByLabel('Cylinder label').fill(label)
-  await page.getByRole('button', { name: 'Save to the log' }).click()
+  const form = page.getByRole('form', { name: 'Log refrigerant added or recovered' })
+  await form.getByLabel('Stage', { exact: true }).selectOption({ index: 1 })
+  await form.getByLabel('Added or recovered', { exact: true }).selectOption('recovered')
+  await form.getByLabel('Grams').fill('120')
+  await form.getByLabel('Cylinder label').fill(label)
+  await form.getByRole('button', { name: 'Save to the log' }).click()
   await expect(page.getByRole('cell', { name: label }).first()).toBeVisible()
 
   await gotoReady(page, '/cylinders')

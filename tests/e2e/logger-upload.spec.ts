@@ -1,0 +1,38 @@
+import { expect, test } from '@playwright/test'
+import { isoTime, pullDownSeries } from '../unit/server/domain/logger/fixtures'
+import { DESKTOP, gotoReady, signIn } from './helpers'
+
+// 6 h of minute readings with a 90 min plateau at -50 °C on the way to -80 °C (invented data).
+const cabinet = pullDownSeries({ fromC: 20, toC: -80, rateKPerHour: 30, stall: { levelC: -50, minutes: 90 } }, 360)
+const CSV = ['time,Cabinet (°C),Ambient (°C)', ...cabinet.map((c, m) => `${isoTime(m)},${c.toFixed(2)},21.0`)].join('\n') + '\n'
+
+test('a technician uploads a logger file to a case, maps it, follows the analysis and takes its readings into the case', async ({ page }) => {
+  await page.setViewportSize(DESKTOP)
+  await signIn(page, 'tech@rimecase.demo')
+  const units = (await (await page.request.get('/api/units')).json()) as { id: number }[]
+  const opened = await page.request.post('/api/cases', { data: { unitId: units[0]!.id, complaint: 'Pulls down slowly, customer sent a logger file', symptoms: [] } })
+  const caseId = ((await opened.json()) as { id: number }).id
+
+  await gotoReady(page, `/cases/${caseId}`)
+  await page.getByRole('link', { name: 'Logger files' }).click()
+  await expect(page.getByRole('heading', { level: 1, name: /^Logger files/ })).toBeVisible()
+  await page.getByLabel('Logger file (CSV)').setInputFiles({ name: 'cabinet-log.csv', mimeType: 'text/csv', buffer: Buffer.from(CSV) })
+  await page.getByLabel('Logger model (remembers the column mapping)').fill(`E2E-${Date.now().toString(36)}`)
+  await page.getByRole('button', { name: 'Upload' }).click()
+
+  await expect(page.getByRole('heading', { name: 'Map the columns of cabinet-log.csv' })).toBeVisible()
+  await expect(page.getByLabel('Quantity in Cabinet (°C)')).toHaveValue('cabinetTemperature')
+  await page.getByLabel('Setpoint, °C (empty: the unit\'s design)').fill('-80')
+  await page.getByRole('button', { name: 'Analyse the file' }).click()
+
+  await expect(page.getByRole('heading', { name: 'What the logger shows' })).toBeVisible({ timeout: 30_000 })
+  await expect(page.getByRole('article', { name: 'Stalls above the setpoint' })).toContainText('−50')
+  await expect(page.getByRole('img', { name: /Chart of/ })).toBeVisible()
+  const offered = page.getByRole('form', { name: 'Offered to the case' })
+  await expect(offered.getByRole('checkbox').first()).toBeChecked()
+  await offered.getByRole('button', { name: 'Add the ticked ones to the case' }).click()
+  await expect(offered.getByRole('status')).toHaveText('Taken into the case.')
+
+  const record = (await (await page.request.get(`/api/cases/${caseId}`)).json()) as { readings: { quantity: string }[] }
+  expect(record.readings.map((r) => r.quantity)).toContain('cabinetTemperature')
+})
