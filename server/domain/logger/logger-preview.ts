@@ -28,7 +28,8 @@ export interface LoggerPreview {
 const looksNumeric = (cell: string) => {
   const c = cell.trim()
   if (!c || /[a-z]{2}/i.test(c)) return false
-  return readNumber(c.replace(/[:\-./\sT]/g, ''), '.').ok || /^\d{1,4}[./-]\d{1,2}[./-]\d{1,4}/.test(c)
+  // A decimal-comma figure ("-57,25") counts as much as a decimal-point one.
+  return readNumber(c.replace(/[:\-./\sT]/g, ''), '.').ok || readNumber(c, ',').ok || /^\d{1,4}[./-]\d{1,2}[./-]\d{1,4}/.test(c)
 }
 
 /** Index of the first of three rows of equal width (2 or more cells) that are mostly figures, or -1. */

@@ -24,6 +24,13 @@ describe('previewLoggerCsv', () => {
     expect(r.stalls[0]!.levelC).toBeCloseTo(-45, 0)
   })
 
+  it('counts decimal-comma figures as data when only two of three columns are figures', async () => {
+    const lines = ['Logger export', 'Datum Zeit;Innen (°F);Raum (°F)']
+    for (let m = 0; m < 30; m++) lines.push(`${dmyTime(m)};${(((cabinet[m]! * 9) / 5) + 32).toFixed(2).replace('.', ',')};69,80`)
+    const p = await previewLoggerCsv(stream(lines.join('\r\n')))
+    expect(p).toMatchObject({ failure: null, delimiter: ';', decimal: ',', headerRow: 2, header: ['Datum Zeit', 'Innen (°F)', 'Raum (°F)'] })
+  })
+
   it('notices a file without a header', async () => {
     const p = await previewLoggerCsv(stream(Array.from({ length: 10 }, (_, m) => `${isoTime(m)},-80.1,21.0`).join('\n')))
     expect(p).toMatchObject({ headerRow: null, header: ['column 1', 'column 2', 'column 3'] })
