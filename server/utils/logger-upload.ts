@@ -2,9 +2,10 @@
 // A multipart form would be copied several times in memory; the raw body is held once.
 import type { H3Event } from 'h3'
 import { BadInputError, TooLargeError } from '#server/domain/errors'
+import { MAX_LOGGER_BYTES } from './route-rules'
 
-/** The largest logger file taken, bytes. */
-export const LOGGER_MAX_BYTES = 64 * 1024 * 1024
+/** The largest logger file taken, bytes (the route's rule refuses larger bodies before this runs). */
+export const LOGGER_MAX_BYTES = MAX_LOGGER_BYTES
 export const LOGGER_TOO_LARGE = 'A logger file may be at most 64 MB. Export a shorter period, or fewer columns.'
 
 /** Reads the CSV body (400 for a form or an empty body, 413 past the cap; the rest is drained so the client gets the answer). */
@@ -14,6 +15,10 @@ export function readLoggerBody(event: H3Event, cap = LOGGER_MAX_BYTES): Promise<
   const declared = Number(getRequestHeader(event, 'content-length'))
   if (declared > cap) return Promise.reject(new TooLargeError(LOGGER_TOO_LARGE))
   const req = event.node.req
+  const empty = () => new BadInputError('The file is empty. Choose the CSV file the logger exported.', { file: ['The file is empty'] })
+  // A body sent without a declared length was already read, within the limit, by the route guard.
+  const read = (req as unknown as Record<symbol, Promise<Buffer> | undefined>)[Symbol.for('h3RawBody')]
+  if (read) return read.then((bytes) => (bytes?.length ? bytes : Promise.reject(empty())))
   return new Promise((resolve, reject) => {
     // With a declared length the bytes go straight into one buffer of that size.
     const whole = Number.isFinite(declared) && declared > 0 ? Buffer.allocUnsafe(declared) : null
@@ -32,7 +37,7 @@ export function readLoggerBody(event: H3Event, cap = LOGGER_MAX_BYTES): Promise<
     }
     const onEnd = () => {
       stop()
-      if (!total) return reject(new BadInputError('The file is empty. Choose the CSV file the logger exported.', { file: ['The file is empty'] }))
+      if (!total) return reject(empty())
       resolve(whole ? whole.subarray(0, total) : Buffer.concat(chunks))
     }
     const onError = () => {

@@ -13,6 +13,14 @@ const NOT_FOUND_WORDS: Partial<Record<RecordKind, string>> = {
   cases: 'Case not found', units: 'Unit not found', sites: 'Site not found', customers: 'Customer not found',
   contacts: 'Contact not found', uploads: 'Upload not found', emails: 'E-mail not found', users: 'User not found', jobs: 'Job not found',
   'kb-versions': 'Knowledge-base version not found', exercises: 'Exercise not found', 'exercise-attempts': 'Attempt not found',
+  cylinders: 'Cylinder not found', 'logger-files': 'Logger file not found',
+}
+/** Types a data-logger CSV arrives with (spreadsheet programs and browsers differ). */
+const CSV_TYPES = new Set(['text/csv', 'text/plain', 'application/octet-stream', 'application/vnd.ms-excel', 'text/comma-separated-values'])
+const WANTED_TYPE: Record<string, string> = {
+  multipart: 'Send the file as multipart/form-data',
+  csv: 'Send the CSV file itself as the request body (Content-Type: text/csv)',
+  json: 'Send the request as JSON (Content-Type: application/json)',
 }
 
 /**
@@ -88,10 +96,8 @@ async function assertBody(event: H3Event, rule: RouteRule): Promise<void> {
   const chunked = /\bchunked\b/i.test(String(headers['transfer-encoding'] ?? ''))
   const hasBody = (Number.isFinite(length) && length > 0) || chunked
   if (type || hasBody) {
-    const accepted = kind === 'multipart' ? type === 'multipart/form-data' : type === 'application/json'
-    if (!accepted) {
-      throw new UnsupportedTypeError(kind === 'multipart' ? 'Send the file as multipart/form-data' : 'Send the request as JSON (Content-Type: application/json)')
-    }
+    const accepted = kind === 'multipart' ? type === 'multipart/form-data' : kind === 'csv' ? CSV_TYPES.has(type) : type === 'application/json'
+    if (!accepted) throw new UnsupportedTypeError(WANTED_TYPE[kind] ?? WANTED_TYPE.json!)
   }
   const tooLarge = () => new TooLargeError(`The request is larger than ${Math.round(limit / 1024 / 1024)} MB`)
   if (Number.isFinite(length) && length > limit) {

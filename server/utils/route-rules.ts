@@ -16,7 +16,8 @@
 //           record named before it (its service answers 404 for one that is not there).
 //   personal  true when the service further limits the record to the person it belongs to (and
 //           trainers): within the organisation others get 404, or 403 for what only the owner may do.
-//   body    for POST, PUT, PATCH and DELETE: 'json' (default), 'multipart' (file uploads) or 'none'.
+//   body    for POST, PUT, PATCH and DELETE: 'json' (default), 'multipart' (file uploads), 'csv' (a
+//           data-logger file sent as the body itself: text/csv, text/plain or octet-stream) or 'none'.
 //           A body of another type is refused with 415, a JSON body over MAX_JSON_BYTES with 413.
 //   maxBytes  a larger limit for this route's body (uploads).
 import type { Permission } from '#shared/utils/permissions'
@@ -35,6 +36,8 @@ export const RECORD_TABLES = {
   'kb-versions': { table: 'kb_versions', id: 'integer' },
   exercises: { table: 'exercises', id: 'integer' },
   'exercise-attempts': { table: 'exercise_attempts', id: 'integer' },
+  cylinders: { table: 'cylinders', id: 'integer' },
+  'logger-files': { table: 'logger_files', id: 'integer' },
 } as const
 
 export type RecordTableKind = keyof typeof RECORD_TABLES
@@ -43,7 +46,7 @@ export type RecordKind = RecordTableKind | 'outbox-message' | 'global' | 'index'
 export interface RouteRule {
   allow: 'public' | 'signed-in' | Permission | readonly Permission[]
   records?: Readonly<Record<string, RecordKind>>
-  body?: 'json' | 'multipart' | 'none'
+  body?: 'json' | 'multipart' | 'csv' | 'none'
   maxBytes?: number
   personal?: boolean
   /** Set for a route a module registers instead of a file under server/api. */
@@ -54,6 +57,8 @@ export interface RouteRule {
 export const MAX_JSON_BYTES = 1024 * 1024
 /** Multipart bodies: one file of at most 10 MB and its form fields. */
 export const MAX_UPLOAD_BYTES = 11 * 1024 * 1024
+/** A data-logger CSV: 64 MB (a million rows of several columns fit in about 50 MB). */
+export const MAX_LOGGER_BYTES = 64 * 1024 * 1024
 /** A whole knowledge base as one JSON bundle. */
 export const MAX_BUNDLE_BYTES = 8 * 1024 * 1024
 
@@ -124,6 +129,26 @@ export const ROUTE_RULES = {
   'POST /api/units/[id]/uploads': { allow: ['equipment:edit', 'cases:work'], records: { id: 'units' }, body: 'multipart', maxBytes: MAX_UPLOAD_BYTES },
   'GET /api/equipment/units': { allow: 'equipment:read' },
   'GET /api/uploads/[id]': { allow: ['cases:read', 'equipment:read'], records: { id: 'uploads' } },
+
+  // The refrigerant log, cylinders and compliance duties.
+  'GET /api/units/[id]/refrigerant-log': { allow: 'equipment:read', records: { id: 'units' } },
+  'POST /api/units/[id]/refrigerant-log': { allow: 'cases:work', records: { id: 'units' } },
+  'POST /api/units/[id]/compliance-checks': { allow: 'cases:work', records: { id: 'units' } },
+  'PUT /api/units/[id]/compliance-settings': { allow: 'equipment:edit', records: { id: 'units' } },
+  'GET /api/compliance/settings': { allow: 'equipment:read' },
+  'PUT /api/compliance/settings': { allow: 'compliance:configure' },
+  'GET /api/compliance/due': { allow: 'equipment:read' },
+  'GET /api/cylinders': { allow: 'equipment:read' },
+  'POST /api/cylinders': { allow: 'cases:work' },
+  'GET /api/cylinders/[id]': { allow: 'equipment:read', records: { id: 'cylinders' } },
+
+  // Data-logger files on cases.
+  'POST /api/cases/[id]/logger-files': { allow: 'cases:work', records: { id: 'cases' }, body: 'csv', maxBytes: MAX_LOGGER_BYTES },
+  'GET /api/cases/[id]/logger-files': { allow: 'cases:read', records: { id: 'cases' } },
+  'GET /api/logger-files/[id]': { allow: 'cases:read', records: { id: 'logger-files' } },
+  'POST /api/logger-files/[id]/process': { allow: 'cases:work', records: { id: 'logger-files' } },
+  'POST /api/logger-files/[id]/accept': { allow: 'cases:work', records: { id: 'logger-files' } },
+  'GET /api/logger-mappings': { allow: 'cases:read' },
 
   // Diagnosis.
   'POST /api/diagnosis/rank': { allow: 'knowledge:read' },

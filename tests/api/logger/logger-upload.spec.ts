@@ -134,14 +134,16 @@ describe('broken files', () => {
     expect(Object.keys(badUnit.body.data.fieldErrors).join()).toMatch(/unit/)
   })
 
-  it('refuses an empty file, a picture, a form and a file that holds no rows of data', async () => {
+  it('refuses an empty file, a picture, a form (415) and a file that holds no rows of data', async () => {
     expect((await upload(tech, '', 'empty.csv')).status).toBe(400)
     const png = await upload(tech, await samplePng(), 'photo.csv')
     expect(png.status).toBe(400)
     expect(png.body.data.fieldErrors.file).toBeDefined()
     const form = new FormData()
     form.append('file', new Blob([GOOD]), 'log.csv')
-    expect((await tech.post(`/api/cases/${caseId}/logger-files?name=log.csv`, form)).status).toBe(400)
+    const asForm = await tech.post(`/api/cases/${caseId}/logger-files?name=log.csv`, form)
+    expect(asForm.status).toBe(415)
+    expect(asForm.body.message).toMatch(/text\/csv/)
     const prose = await upload(tech, 'Dear customer,\nplease find the log attached.\nRegards\n', 'letter.csv')
     expect(prose.status).toBe(400)
     expect(prose.body.message).toMatch(/letter\.csv/)

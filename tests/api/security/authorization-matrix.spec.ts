@@ -94,6 +94,13 @@ beforeAll(async () => {
   expect(exercise.status).toBe(201)
   const attempt = await tech.post(`/api/exercises/${exercise.body.id}/attempts`)
   expect(attempt.status).toBe(201)
+  // A data-logger file on the case, and a cylinder record.
+  const logger = await tech.request('POST', `/api/cases/${opened.id}/logger-files?name=matrix.csv`, 'time,cabinet\n2026-01-01 10:00,-80\n2026-01-01 10:01,-80\n2026-01-01 10:02,-80\n', { headers: { 'content-type': 'text/csv' } })
+  expect(logger.status).toBe(201)
+  ownRecords['logger-files'] = String(logger.body.id)
+  const cylinder = await tech.post('/api/cylinders', { label: `MATRIX-${randomUUID().slice(0, 8)}` })
+  expect(cylinder.status).toBe(201)
+  ownRecords.cylinders = String(cylinder.body.id)
   ownRecords.exercises = String(exercise.body.id)
   ownRecords['exercise-attempts'] = String(attempt.body.id)
   for (const kind of ['sites', 'customers', 'users', 'emails', 'jobs', 'kb-versions'] as const) {
@@ -155,7 +162,7 @@ describe('authorization matrix', () => {
       if (!rule) continue
       for (const actor of actors) {
         const path = await pathFor(route.path, rule)
-        const body = route.method === 'GET' || route.method === 'DELETE' || rule.body === 'multipart' ? undefined : {}
+        const body = route.method === 'GET' || route.method === 'DELETE' || rule.body === 'multipart' || rule.body === 'csv' ? undefined : {}
         const res = await actor.client.request(route.method, path, body)
         calls++
         const want = expected(rule, actor)
