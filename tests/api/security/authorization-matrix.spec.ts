@@ -110,8 +110,9 @@ beforeAll(async () => {
   }
   const admin = actors.find((a) => a.role === 'admin' && a.org === 'own')!.client
   ownRecords['outbox-message'] = await waitFor(async () => {
-    const list = (await admin.get('/api/outbox')).body as { id: string }[]
-    return list[0]?.id
+    // The outbox answers one page of messages ({ items, total, … }).
+    const page = (await admin.get('/api/outbox')).body as { items: { id: string }[] }
+    return page.items?.[0]?.id
   }, 'the report e-mail in the outbox')
   ownRecords.global = 'R23'
   ownRecords.index = '0'
