@@ -3,7 +3,7 @@ export default defineNuxtConfig({
   compatibilityDate: '2026-07-01',
   devtools: { enabled: false },
   telemetry: false,
-  modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils'],
+  modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@vite-pwa/nuxt'],
   css: [
     '@fontsource/atkinson-hyperlegible-next/400.css',
     '@fontsource/atkinson-hyperlegible-next/700.css',
@@ -40,6 +40,56 @@ export default defineNuxtConfig({
     experimental: { tasks: false },
     // Serve pre-compressed JS/CSS: technicians load the case page over weak phone connections.
     compressPublicAssets: { gzip: true, brotli: true },
+  },
+  // An offline app shell: the service worker keeps the app's scripts, styles and fonts, and the last
+  // copy of each page and case read, so a case opened before the signal went loads again after a
+  // reload without a connection (changes made meanwhile wait in the browser's storage, see
+  // app/stores/caseDrafts.ts). Pages and data are always asked of the network first: a cached copy
+  // is used only when the network does not answer, so nobody works on a stale build or record.
+  pwa: {
+    registerType: 'autoUpdate',
+    manifest: {
+      name: 'Rimecase',
+      short_name: 'Rimecase',
+      description: 'Guided fault-finding and case records for ultra-low-temperature refrigeration',
+      theme_color: '#0e7490',
+      background_color: '#f8fafc',
+      display: 'standalone',
+      start_url: '/',
+      icons: [{ src: '/favicon.svg', sizes: 'any', type: 'image/svg+xml', purpose: 'any' }],
+    },
+    workbox: {
+      // Server-rendered pages: no single fallback page stands in for all of them.
+      navigateFallback: null,
+      globPatterns: ['_nuxt/**/*.{js,css}', '*.svg'],
+      cleanupOutdatedCaches: true,
+      clientsClaim: true,
+      skipWaiting: true,
+      runtimeCaching: [
+        {
+          // Pages: read as visited, or fetched ahead for the open cases (marked by a header).
+          urlPattern: ({ request, url }) => request.method === 'GET' && !url.pathname.startsWith('/api/')
+            && (request.mode === 'navigate' || request.headers.get('x-rimecase-offline') === 'page'),
+          handler: 'NetworkFirst',
+          options: { cacheName: 'rimecase-pages', networkTimeoutSeconds: 5, expiration: { maxEntries: 80 } },
+        },
+        {
+          // Data the case pages read; writes are never cached.
+          urlPattern: ({ request, url }) => request.method === 'GET'
+            && /^\/api\/(cases|units|people|diagnosis\/(tests|titles|vocabulary)|auth\/me|_auth\/session)(\/|$)/.test(url.pathname)
+            && !url.pathname.endsWith('.pdf'),
+          handler: 'NetworkFirst',
+          options: { cacheName: 'rimecase-data', networkTimeoutSeconds: 5, expiration: { maxEntries: 300 } },
+        },
+        {
+          urlPattern: ({ request, url }) => request.method === 'GET' && (request.destination === 'font' || /^\/api\/uploads\/\d+/.test(url.pathname)),
+          handler: 'CacheFirst',
+          options: { cacheName: 'rimecase-files', expiration: { maxEntries: 200, maxAgeSeconds: 60 * 60 * 24 * 30 } },
+        },
+      ],
+    },
+    client: { installPrompt: true },
+    devOptions: { enabled: false },
   },
   typescript: { strict: true },
 })

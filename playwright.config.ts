@@ -11,7 +11,9 @@ export default defineConfig({
   workers: 1,
   retries: process.env.CI ? 1 : 0,
   reporter: [['list']],
-  use: { baseURL, headless: true, trace: 'off' },
+  // The app's service worker is kept out of every test but the offline ones (which allow it), so no
+  // test ever runs against a copy of the app cached by an earlier build.
+  use: { baseURL, headless: true, trace: 'off', serviceWorkers: 'block' },
   projects: [
     {
       name: 'debian-chromium',

@@ -1,11 +1,14 @@
 // What an upload may be. The server enforces these (server/domain/uploads/upload-rules.ts) and
 // the upload form states them, so both read the same numbers and words from here.
 
-/** Largest file accepted per upload, in bytes (10 MB). */
-export const UPLOAD_MAX_BYTES = 10 * 1024 * 1024
+/**
+ * Largest file accepted per upload, in bytes (25 MB): the app shrinks photos before sending, but a
+ * full-size photo of a recent phone (up to about 20 MB) or a scanned certificate still fits.
+ */
+export const UPLOAD_MAX_BYTES = 25 * 1024 * 1024
 
 /** The limit as people read it. */
-export const UPLOAD_MAX_TEXT = '10 MB'
+export const UPLOAD_MAX_TEXT = '25 MB'
 
 /** Content types accepted, with the name people know each by. Checked against the bytes, not the file name. */
 export const UPLOAD_TYPES = {

@@ -17,6 +17,7 @@ async function pathsFor(page: Page): Promise<string[]> {
   return [
     '/', '/cases', '/cases/new', `/cases/${open.id}`, `/cases/${closed.id}`, `/cases/${closed.id}/report`, '/units', '/units/new',
     `/units/${unit.id}`, `/units/${unit.id}/edit`, '/customers', '/calculator', '/admin/users', '/admin/outbox',
+    '/training', '/training/accuracy', `/cases/${closed.id}/replay`,
   ]
 }
 
@@ -34,6 +35,14 @@ function smallText(page: Page) {
       if (size < 14) found.push(`${el.tagName.toLowerCase()}: ${el.textContent!.trim().slice(0, 40)} (${size} px)`)
     }
     return found
+  })
+}
+
+/** Dates written another way than the app's one format ("2026-12-02 14:05 CET"): US-style or raw ISO. */
+function foreignDates(page: Page) {
+  return page.evaluate(() => {
+    const text = document.body.innerText
+    return [...(text.match(/\b\d{1,2}\/\d{1,2}\/\d{2,4}\b/g) ?? []), ...(text.match(/\b\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/g) ?? [])]
   })
 }
 
@@ -64,7 +73,7 @@ async function seriousAxe(page: Page) {
 
 for (const [size, viewport] of Object.entries(SIZES)) {
   test(`every page opens at ${size} size (${viewport.width}×${viewport.height}) without a hydration mismatch or a console error`, async ({ page }) => {
-    // Fourteen pages, each checked by axe twice: minutes on a busy two-core machine.
+    // Seventeen pages, each checked by axe twice: minutes on a busy two-core machine.
     test.setTimeout(600_000)
     await page.setViewportSize(viewport)
     const problems: string[] = []
@@ -83,6 +92,7 @@ for (const [size, viewport] of Object.entries(SIZES)) {
       await page.waitForLoadState('networkidle')
       expect(await smallText(page), `${path}: text under 14 px`).toEqual([])
       expect(await clippedSelects(page), `${path}: clipped selects`).toEqual([])
+      expect(await foreignDates(page), `${path}: dates in another format`).toEqual([])
       expect(await seriousAxe(page), `${path}: axe, light theme`).toEqual([])
       await page.emulateMedia({ colorScheme: 'dark' })
       expect(await seriousAxe(page), `${path}: axe, dark theme`).toEqual([])

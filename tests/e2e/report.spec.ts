@@ -73,7 +73,7 @@ test('the report page is readable on a phone and an upload states its limit', as
   await signIn(page, 'tech@rimecase.demo')
   await page.goto(`/cases/${id}/report`)
   await expect(page.getByRole('heading', { level: 1, name: /Service report/ })).toBeVisible()
-  await expect(page.getByText(/JPEG, PNG, WebP or PDF, up to 10 MB per file/)).toBeVisible()
+  await expect(page.getByText(/JPEG, PNG, WebP or PDF, up to 25 MB per file/)).toBeVisible()
   const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)
   expect(overflow).toBeLessThanOrEqual(0)
 

@@ -62,12 +62,12 @@ describe('uploading to a case', () => {
     expect(html.status).toBe(415)
   })
 
-  it('refuses a file over 10 MB with 413 and says the limit', async () => {
-    const big = Buffer.alloc(10 * 1024 * 1024 + 1, 0x20)
+  it('refuses a file over 25 MB with 413 and says the limit', async () => {
+    const big = Buffer.alloc(25 * 1024 * 1024 + 1, 0x20)
     png.copy(big)
     const res = await tech.post(`/api/cases/${caseId}/uploads`, fileForm(big, 'huge.png', 'image/png'))
     expect(res.status).toBe(413)
-    expect(res.body.message).toMatch(/10 MB/)
+    expect(res.body.message).toMatch(/25 MB/)
   })
 
   it('answers 400 with a clear message for an empty, missing or mislabelled file (415 for a body that is not a form)', async () => {

@@ -2,7 +2,7 @@ import { addCaseFile, assertCaseTakesFiles } from '#server/services/uploads'
 import { IdParamsSchema } from '#shared/schemas/common'
 import type { UploadDto } from '#shared/types/uploads'
 
-// Multipart: `file` (JPEG, PNG, WebP or PDF by content, 10 MB at most) and optional `purpose`.
+// Multipart: `file` (JPEG, PNG, WebP or PDF by content, 25 MB at most) and optional `purpose`.
 export default defineApiHandler(async (event) => {
   const actor = await requireUser(event, 'cases:work')
   const { id } = await readParamsAs(event, IdParamsSchema)
