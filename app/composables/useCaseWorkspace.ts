@@ -1,4 +1,4 @@
-import { useOnline } from '@vueuse/core'
+import { useIntervalFn, useOnline } from '@vueuse/core'
 import type { CaseDto } from '#shared/types/cases'
 
 type SyncState = 'saved' | 'saving' | 'queued' | 'offline' | 'conflict' | 'error'
@@ -53,8 +53,18 @@ export function useCaseWorkspace(caseId: number) {
     }
   }
 
+  let flushing = false
   /** Sends queued changes in order; appends need no version, so they are replayed as they were. */
   async function flush() {
+    if (flushing) return
+    flushing = true
+    try {
+      await sendQueued()
+    } finally {
+      flushing = false
+    }
+  }
+  async function sendQueued() {
     for (const change of drafts.queuedFor(caseId)) {
       try {
         record.value = await post(change.path, change.body, change.method)
@@ -80,7 +90,13 @@ export function useCaseWorkspace(caseId: number) {
     if (now) void flush()
     else state.value = 'offline'
   })
+  // The browser may say it is online while nothing gets through (a weak signal, a sign-in portal):
+  // changes still waiting are tried again every 15 s, refused ones only when asked.
+  const retry = useIntervalFn(() => {
+    if (online.value && queued.value.some((c) => !c.lastError)) void flush()
+  }, 15_000, { immediate: false })
   onMounted(() => {
+    retry.resume()
     if (!online.value) state.value = 'offline'
     else if (queued.value.length) void flush()
   })

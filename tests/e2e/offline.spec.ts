@@ -28,7 +28,7 @@ test('an open case loads after a reload without a connection, and a reading ente
 
   await page.goto(`/cases/${id}`)
   await waitForHydration(page)
-  await expect(page.getByText('Offline shell: plant room without signal')).toBeVisible()
+  await expect(page.locator('p', { hasText: 'Complaint: Offline shell: plant room without signal' })).toBeVisible()
   await expect(page.getByRole('heading', { name: 'Likely causes' })).toBeVisible()
 
   await page.getByRole('navigation', { name: 'Case actions' }).getByRole('button', { name: 'Add reading' }).click()
@@ -43,9 +43,9 @@ test('an open case loads after a reload without a connection, and a reading ente
   // A reload still without a connection: the page comes back, and so does the waiting change.
   await page.reload()
   await waitForHydration(page)
-  await expect(page.getByText('Offline shell: plant room without signal')).toBeVisible()
-  await expect(page.getByTestId('sync-state')).toContainText('Offline')
+  await expect(page.locator('p', { hasText: 'Complaint: Offline shell: plant room without signal' })).toBeVisible()
   await expect(page.getByTestId('sync-state')).toContainText('1 change(s) kept on this device')
+  await expect(page.getByTestId('sync-state')).not.toContainText('All changes saved')
 
   await context.setOffline(false)
   await expect(page.getByTestId('sync-state')).toContainText('All changes saved', { timeout: 30_000 })
