@@ -106,16 +106,18 @@ async function assertBody(event: H3Event, rule: RouteRule): Promise<void> {
   }
   if (chunked && !Number.isFinite(length)) {
     // No declared length: read it here with the limit, and hand the bytes to the body readers.
+    // Past the limit the rest is read and dropped rather than left unread, so that the client,
+    // still sending, receives the 413 instead of a reset connection.
     const bytes = await readAtMost(event, limit)
-    if (!bytes) {
-      setResponseHeader(event, 'connection', 'close')
-      throw tooLarge()
-    }
+    if (!bytes) throw tooLarge()
     ;(event.node.req as unknown as Record<symbol, unknown>)[Symbol.for('h3RawBody')] = Promise.resolve(bytes)
   }
 }
 
-/** The request body, or null as soon as it passes `limit` bytes. */
+/** Bytes past the limit that are read and dropped before the connection is cut. */
+const DISCARD_AT_MOST = 16 * 1024 * 1024
+
+/** The request body, or null as soon as it passes `limit` bytes (the rest is then drained and dropped). */
 function readAtMost(event: H3Event, limit: number): Promise<Buffer | null> {
   const req = event.node.req
   return new Promise((resolve, reject) => {
@@ -125,7 +127,12 @@ function readAtMost(event: H3Event, limit: number): Promise<Buffer | null> {
       size += chunk.length
       if (size > limit) {
         req.off('data', onData)
-        req.pause()
+        chunks.length = 0
+        let dropped = 0
+        req.on('data', (more: Buffer) => {
+          dropped += more.length
+          if (dropped > DISCARD_AT_MOST) req.destroy()
+        })
         resolve(null)
         return
       }
