@@ -15,6 +15,7 @@ const NAV_ITEMS: NavItem[] = [
   { to: '/compliance', label: 'Compliance', permission: 'equipment:read' },
   { to: '/cylinders', label: 'Cylinders', permission: 'equipment:read' },
   { to: '/calculator', label: 'Calculator', permission: 'calculator:use' },
+  { to: '/knowledge', label: 'Knowledge base', permission: 'knowledge:author' },
   { to: '/training', label: 'Training', permission: 'cases:read' },
   { to: '/admin/users', label: 'Users', permission: 'users:manage' },
   { to: '/admin/outbox', label: 'Outbox', permission: 'outbox:read' },

@@ -102,3 +102,42 @@ export interface VersionCheckDto {
   scenarios: { total: number; top1: number; top2: number; publishedTop1: number | null; failures: ScenarioFailureDto[] }
   passed: boolean
 }
+
+/** A finding as stored and edited: a json-rules-engine rule whose event carries the likelihood table. */
+export interface KbFindingJson {
+  name: string
+  subject?: string
+  stages?: string[]
+  conditions: Record<string, unknown>
+  // The event's params are checked by the knowledge-base schema on the server; editors hold them loosely.
+  event: { type: 'finding'; params: Record<string, any> }
+}
+
+/** `GET …/versions/{id}/content`: every item of a version with the lock version an edit sends back. */
+export interface KbItemsDto {
+  version: KbVersionDto
+  causes: ({ slug: string; title: string; description: string; lockVersion: number } & Record<string, unknown>)[]
+  tests: ({ slug: string; title: string; procedure: string; lockVersion: number } & Record<string, unknown>)[]
+  findings: { finding: KbFindingJson; examples: unknown[]; lockVersion: number }[]
+}
+
+export type DiffItemKind = 'cause' | 'test' | 'finding'
+
+export interface FieldChange {
+  path: string
+  before?: unknown
+  after?: unknown
+}
+
+export interface DiffItem {
+  kind: DiffItemKind
+  key: string
+  change: 'added' | 'removed' | 'changed'
+  fields: FieldChange[]
+}
+
+/** `GET …/versions/{id}/diff`. */
+export interface KbDiffDto {
+  against: number | null
+  items: DiffItem[]
+}

@@ -1,13 +1,13 @@
 /**
  * The shape of a finding's conditions: json-rules-engine's all/any/not tree over fact comparisons,
  * with Rimecase's range operators. Kept apart from the knowledge-base schemas so that stage expansion
- * and the schemas can both use it without importing each other.
+ * and the schemas can both use it without importing each other. The operator list itself is shared
+ * with the app's condition editor.
  */
+import { CONDITION_OPERATORS, NUMERIC_OPERATORS, RANGE_OPERATORS, type OperatorName } from '#shared/types/kb-conditions'
 
-export const NUMERIC_OPERATORS = ['lessThan', 'lessThanInclusive', 'greaterThan', 'greaterThanInclusive'] as const
-export const RANGE_OPERATORS = ['between', 'outside', 'withinPercent', 'outsidePercent'] as const
-export const OPERATORS = ['equal', 'notEqual', 'in', 'notIn', ...NUMERIC_OPERATORS, ...RANGE_OPERATORS] as const
-export type OperatorName = (typeof OPERATORS)[number]
+export { NUMERIC_OPERATORS, RANGE_OPERATORS, type OperatorName }
+export const OPERATORS = CONDITION_OPERATORS
 
 export type ConditionValue = number | string | boolean | number[] | string[]
 
@@ -27,4 +27,3 @@ export interface NotCondition {
 }
 export type TopCondition = AllCondition | AnyCondition | NotCondition
 export type NestedCondition = LeafCondition | TopCondition
-

@@ -6,20 +6,9 @@
 import type { KnowledgeBaseSource } from '#server/domain/diagnosis/knowledge-base'
 import type { FindingExample } from './examples-schema'
 
-export type DiffItemKind = 'cause' | 'test' | 'finding'
+import type { DiffItem, DiffItemKind, FieldChange } from '#shared/types/knowledge'
 
-export interface FieldChange {
-  path: string
-  before?: unknown
-  after?: unknown
-}
-
-export interface DiffItem {
-  kind: DiffItemKind
-  key: string
-  change: 'added' | 'removed' | 'changed'
-  fields: FieldChange[]
-}
+export type { DiffItem, DiffItemKind, FieldChange } from '#shared/types/knowledge'
 
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v)
 

@@ -29,3 +29,4 @@ export {
   ADDITION_PURPOSE_WORDS, CHECK_KIND_WORDS, CYLINDER_PURPOSE_WORDS, DUTY_KIND_WORDS, additionPurposeLabel, applianceTypeLabel, checkKindLabel,
   cylinderPurposeLabel, dutyKindLabel,
 } from './compliance'
+export { KB_AUDIT_ACTION_WORDS, KB_VERSION_STATUS_WORDS, kbAuditActionLabel, kbVersionStatusLabel } from './knowledge'
