@@ -16,31 +16,34 @@ test('an engineer edits a finding of a new draft: structured and JSON views foll
   // Structured → JSON.
   const json = page.getByLabel('Conditions as JSON')
   await expect(json).toHaveValue(/"fact": "pulldownStalled"/)
-  await page.getByLabel('Fact conditions.all[0]').selectOption('runtimeMin')
-  await page.getByLabel('Operator conditions.all[0]').selectOption('greaterThan')
-  await page.getByLabel('Value conditions.all[0]').fill('360')
-  await page.getByLabel('Value conditions.all[0]').blur()
-  await expect(json).toHaveValue(/"fact": "runtimeMin",\s*"operator": "greaterThan",\s*"value": 360/)
+  await page.getByLabel('Fact conditions.all[0]', { exact: true }).selectOption('runtimeMin')
+  await page.getByLabel('Operator conditions.all[0]', { exact: true }).selectOption('greaterThan')
+  await page.getByLabel('Value conditions.all[0]', { exact: true }).fill('360')
+  await page.getByLabel('Value conditions.all[0]', { exact: true }).blur()
+  // The stored JSON keeps its own key order; each part of the comparison is checked.
+  await expect(json).toHaveValue(/"fact": "runtimeMin"/)
+  await expect(json).toHaveValue(/"operator": "greaterThan"/)
+  await expect(json).toHaveValue(/"value": 360\b/)
 
   // JSON → structured.
   await json.fill(JSON.stringify({ any: [{ fact: 'pulldownStalled', operator: 'equal', value: true }, { all: [{ fact: 'runtimeMin', operator: 'between', value: [360, 2000] }] }] }, null, 2))
-  await expect(page.getByLabel('Group conditions')).toHaveValue('any')
-  await expect(page.getByLabel('Fact conditions.any[0]')).toHaveValue('pulldownStalled')
-  await expect(page.getByLabel('Value conditions.any[1].all[0]')).toHaveValue('360, 2000')
+  await expect(page.getByLabel('Group conditions', { exact: true })).toHaveValue('any')
+  await expect(page.getByLabel('Fact conditions.any[0]', { exact: true })).toHaveValue('pulldownStalled')
+  await expect(page.getByLabel('Value conditions.any[1].all[0]', { exact: true })).toHaveValue('360, 2000')
 
   // A probability above 1 is refused, with the row of the table named.
-  await page.getByLabel('Likelihood other').fill('5')
-  await page.getByLabel('Likelihood other').blur()
+  await page.getByLabel('Likelihood other', { exact: true }).fill('5')
+  await page.getByLabel('Likelihood other', { exact: true }).blur()
   await expect(page.getByRole('table', { name: 'Likelihood table' }).getByRole('alert').first()).toContainText(/between 0 and 1/)
   await page.getByRole('button', { name: 'Save finding' }).click()
   await expect(page.getByRole('alert').first()).toContainText(/likelihoods/)
-  await page.getByLabel('Likelihood other').fill('0.3')
-  await page.getByLabel('Likelihood other').blur()
+  await page.getByLabel('Likelihood other', { exact: true }).fill('0.3')
+  await page.getByLabel('Likelihood other', { exact: true }).blur()
   await page.getByRole('button', { name: 'Save finding' }).click()
   await expect(page.getByRole('status').filter({ hasText: 'Saved.' })).toBeVisible()
 
   // The saved finding reads back as edited.
   await page.reload()
   await expect(page.getByLabel('Conditions as JSON')).toHaveValue(/"between"/)
-  await expect(page.getByLabel('Likelihood other')).toHaveValue('0.3')
+  await expect(page.getByLabel('Likelihood other', { exact: true })).toHaveValue('0.3')
 })
