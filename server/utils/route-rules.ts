@@ -164,6 +164,7 @@ export const ROUTE_RULES = {
   'POST /api/knowledge-base/versions/[id]/impact': { allow: 'knowledge:author', records: { id: 'kb-versions' }, body: 'none' },
   'POST /api/knowledge-base/bundles': { allow: 'knowledge:author', maxBytes: MAX_BUNDLE_BYTES },
   'POST /api/knowledge-base/versions': { allow: 'knowledge:author' },
+  'POST /api/knowledge-base/findings/validate': { allow: 'knowledge:author' },
   'GET /api/knowledge-base/audit': { allow: 'knowledge:author' },
   'GET /api/knowledge-base/versions/[id]/content': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
   'GET /api/knowledge-base/versions/[id]/diff': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
