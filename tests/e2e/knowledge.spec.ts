@@ -32,13 +32,16 @@ test('an engineer edits a finding of a new draft: structured and JSON views foll
   await expect(page.getByLabel('Value conditions.any[1].all[0]', { exact: true })).toHaveValue('360, 2000')
 
   // A probability above 1 is refused, with the row of the table named.
-  await page.getByLabel('Likelihood other', { exact: true }).fill('5')
-  await page.getByLabel('Likelihood other', { exact: true }).blur()
-  await expect(page.getByRole('table', { name: 'Likelihood table' }).getByRole('alert').first()).toContainText(/between 0 and 1/)
+  const other = page.getByLabel('Likelihood other', { exact: true })
+  await other.fill('5')
+  await other.blur()
+  await expect(other).toHaveValue('5')
   await page.getByRole('button', { name: 'Save finding' }).click()
+  await expect(page.getByRole('table', { name: 'Likelihood table' }).getByRole('alert').first()).toContainText(/between 0 and 1/)
   await expect(page.getByRole('alert').first()).toContainText(/likelihoods/)
-  await page.getByLabel('Likelihood other', { exact: true }).fill('0.3')
-  await page.getByLabel('Likelihood other', { exact: true }).blur()
+  await other.fill('0.3')
+  await other.blur()
+  await expect(other).toHaveValue('0.3')
   await page.getByRole('button', { name: 'Save finding' }).click()
   await expect(page.getByRole('status').filter({ hasText: 'Saved.' })).toBeVisible()
 
