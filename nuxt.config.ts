@@ -31,7 +31,9 @@ export default defineNuxtConfig({
     testRoutes: false,
     // The address people reach the site at (NUXT_SITE_URL), e.g. https://rimecase.example.org: an https address makes the session cookie Secure, and its origin may send writes.
     siteUrl: '',
-    session: { cookie: { secure: false }, maxAge: 60 * 60 * 12 },
+    // The cookie is HttpOnly and SameSite=Lax; it is Secure when NUXT_SITE_URL is an https address
+    // (server/plugins/sessions.ts) or NUXT_SESSION_COOKIE_SECURE=true.
+    session: { cookie: { secure: false, sameSite: 'lax', httpOnly: true }, maxAge: 60 * 60 * 12 },
   },
   nitro: {
     // One worker per core: the diagnosis is CPU work, and a technician's request should not queue

@@ -55,3 +55,11 @@ export class FieldNotFoundError extends NotFoundError {
     super(message)
   }
 }
+
+/** Too many attempts: try again after `retryAfterS` seconds. */
+export class RateLimitedError extends Error {
+  override name = 'RateLimitedError'
+  constructor(message: string, readonly retryAfterS: number) {
+    super(message)
+  }
+}

@@ -4,6 +4,7 @@ export default defineEventHandler(async (event) => {
   try {
     await enforceRouteRule(event)
   } catch (error) {
+    setResponseHeaders(event, errorHeaders(error))
     throw toHttpError(error)
   }
 })

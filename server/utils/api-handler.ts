@@ -10,6 +10,7 @@ export function defineApiHandler<T>(handler: (event: H3Event<EventHandlerRequest
     try {
       return await handler(event)
     } catch (error) {
+      setResponseHeaders(event, errorHeaders(error))
       throw toHttpError(error)
     }
   })

@@ -1,8 +1,8 @@
 import type { H3Event } from 'h3'
 import type { User } from '#auth-utils'
 import type { CacheStamps } from '#server/db/repositories/cache-stamps'
-import { findActiveUser } from '#server/db/repositories/users'
 import { ForbiddenError, UnauthenticatedError } from '#server/domain/errors'
+import { userOfSession } from '#server/services/users'
 import { can, type Permission } from '#shared/utils/permissions'
 
 type ActiveUser = User & { cacheStamps: CacheStamps }
@@ -13,10 +13,12 @@ async function activeUser(event: H3Event): Promise<ActiveUser> {
   if (known) return known
   const session = await getUserSession(event)
   if (!session.user) throw new UnauthenticatedError('Sign in first')
-  const current = await findActiveUser(session.user.id)
+  // The cookie names a server-side session: signing out, a deactivation or a password change ends
+  // it for every copy of the cookie.
+  const current = session.sid ? await userOfSession(session.sid, new Date()) : null
   if (!current) {
     await clearUserSession(event)
-    throw new UnauthenticatedError('Your account is no longer active. Sign in again.')
+    throw new UnauthenticatedError('Your session has ended or your account is no longer active. Sign in again.')
   }
   const user: ActiveUser = {
     id: current.id, email: current.email, name: current.name, role: current.role, organisationId: current.organisationId, cacheStamps: current.cacheStamps,

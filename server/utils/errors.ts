@@ -3,7 +3,7 @@
 // defineApiHandler (server/utils/api-handler.ts), which passes every error through toHttpError.
 import { RankInputError } from '#server/domain/diagnosis/rank'
 import {
-  BadInputError, ConflictError, FieldConflictError, FieldNotFoundError, ForbiddenError, InvalidStateError, NotFoundError, TooLargeError,
+  BadInputError, ConflictError, FieldConflictError, FieldNotFoundError, ForbiddenError, InvalidStateError, NotFoundError, RateLimitedError, TooLargeError,
   UnauthenticatedError, UnavailableError, UnsupportedTypeError,
 } from '#server/domain/errors'
 import { OutOfRangeError, UnitError, UnknownRefrigerantError } from '#shared/utils/properties'
@@ -20,6 +20,7 @@ const STATUS: [ErrorType, number, string][] = [
   [BadInputError, 400, 'Bad Request'],
   [TooLargeError, 413, 'Content Too Large'],
   [UnsupportedTypeError, 415, 'Unsupported Media Type'],
+  [RateLimitedError, 429, 'Too Many Requests'],
   [UnavailableError, 503, 'Service Unavailable'],
   // The property module (shared with the browser) and the ranking have their own error classes.
   [UnknownRefrigerantError, 404, 'Not Found'],
@@ -38,6 +39,7 @@ function dataOf(error: Error): Record<string, unknown> | undefined {
   if (error instanceof UnitError) return { allowed: error.allowed, fieldErrors: { unit: [error.message] } }
   if (error instanceof RankInputError) return { fieldErrors: { testResults: error.issues } }
   if (error instanceof BadInputError && error.fieldErrors) return { fieldErrors: error.fieldErrors }
+  if (error instanceof RateLimitedError) return { retryAfterS: error.retryAfterS }
   // Field-tied errors carry the same `fieldErrors` shape as a 400, so forms place them beside the field.
   if (error instanceof FieldConflictError || error instanceof FieldNotFoundError) return { fieldErrors: { [error.field]: [error.message] } }
   return undefined
@@ -46,6 +48,12 @@ function dataOf(error: Error): Record<string, unknown> | undefined {
 /** The HTTP status a domain error maps to, or undefined for anything else. */
 export function statusOf(error: unknown): number | undefined {
   return STATUS.find(([type]) => error instanceof type)?.[1]
+}
+
+/** Response headers that go with a domain error (how long to wait after a 429). */
+export function errorHeaders(error: unknown): Record<string, string> {
+  if (error instanceof RateLimitedError) return { 'retry-after': String(Math.max(1, Math.ceil(error.retryAfterS))) }
+  return {}
 }
 
 /** Maps a domain error to its HTTP error; anything else (an h3 error, a bug) is returned unchanged. */

@@ -1,5 +1,6 @@
 import type { H3Event } from 'h3'
 import { recordInOrganisation } from '#server/db/repositories/ownership'
+import { spend } from '#server/services/rate-limits'
 import { ForbiddenError, NotFoundError, TooLargeError, UnsupportedTypeError } from '#server/domain/errors'
 import {
   MAX_JSON_BYTES, RECORD_TABLES, WRITE_METHODS, matchRouteRule, rulePermissions, type RecordKind, type RouteRule,
@@ -28,7 +29,7 @@ const WANTED_TYPE: Record<string, string> = {
  * page of another origin is refused (403), a body of another type than the route takes (415) or
  * larger than its limit (413) is refused before it is read, the caller must be signed in with the
  * permission the rule names (401/403), and every record the path names must belong to the caller's
- * organisation (404). A path no rule covers is a 404, even when a handler exists for it.
+ * organisation (404); a rate-limited route counts the call (429 beyond the limit). A path no rule covers is a 404, even when a handler exists for it.
  */
 export async function enforceRouteRule(event: H3Event): Promise<void> {
   const path = event.path.split('?')[0]!
@@ -56,6 +57,7 @@ export async function enforceRouteRule(event: H3Event): Promise<void> {
       if (!(await recordInOrganisation(tableKind, value, actor.organisationId))) throw notFound
     }
   }
+  if (rule.limit) await spend(rule.limit, `${actor.id}`)
 }
 
 /** The origins this site is served from: the request's own host, and the configured site URL. */

@@ -20,6 +20,8 @@
 //           data-logger file sent as the body itself: text/csv, text/plain or octet-stream) or 'none'.
 //           A body of another type is refused with 415, a JSON body over MAX_JSON_BYTES with 413.
 //   maxBytes  a larger limit for this route's body (uploads).
+//   limit   a rate limit (server/services/rate-limits.ts) each signed-in caller's calls count against.
+import type { RatePolicyName } from '#server/services/rate-limits'
 import type { Permission } from '#shared/utils/permissions'
 
 /** Records looked up by id in the caller's organisation, with their table and id column type. */
@@ -49,6 +51,8 @@ export interface RouteRule {
   body?: 'json' | 'multipart' | 'csv' | 'none'
   maxBytes?: number
   personal?: boolean
+  /** Counts each call by the signed-in person against this limit of server/services/rate-limits.ts (429 with Retry-After beyond it). */
+  limit?: RatePolicyName
   /** Set for a route a module registers instead of a file under server/api. */
   providedBy?: string
 }
@@ -67,6 +71,7 @@ export const ROUTE_RULES = {
   'POST /api/auth/login': { allow: 'public' },
   'POST /api/auth/logout': { allow: 'public', body: 'none' },
   'GET /api/auth/me': { allow: 'signed-in' },
+  'POST /api/auth/password': { allow: 'signed-in', limit: 'account' },
   'GET /api/_auth/session': { allow: 'public', providedBy: 'nuxt-auth-utils' },
   'DELETE /api/_auth/session': { allow: 'public', body: 'none', providedBy: 'nuxt-auth-utils' },
   'GET /api/health': { allow: 'public' },
@@ -75,8 +80,8 @@ export const ROUTE_RULES = {
 
   // Users of the organisation.
   'GET /api/admin/users': { allow: 'users:manage' },
-  'POST /api/admin/users': { allow: 'users:manage' },
-  'PATCH /api/admin/users/[id]': { allow: 'users:manage', records: { id: 'users' } },
+  'POST /api/admin/users': { allow: 'users:manage', limit: 'account' },
+  'PATCH /api/admin/users/[id]': { allow: 'users:manage', records: { id: 'users' }, limit: 'account' },
 
   // Calculations and reference data.
   'POST /api/calculations/charging': { allow: 'calculator:use' },
@@ -103,8 +108,8 @@ export const ROUTE_RULES = {
   'POST /api/cases/[id]/uploads': { allow: 'cases:work', records: { id: 'cases' }, body: 'multipart', maxBytes: MAX_UPLOAD_BYTES },
   'GET /api/cases/[id]/report': { allow: 'cases:read', records: { id: 'cases' } },
   'GET /api/cases/[id]/report.pdf': { allow: 'cases:read', records: { id: 'cases' } },
-  'POST /api/cases/[id]/report/send': { allow: 'cases:work', records: { id: 'cases' } },
-  'POST /api/emails/[id]/retry': { allow: 'cases:work', records: { id: 'emails' }, body: 'none' },
+  'POST /api/cases/[id]/report/send': { allow: 'cases:work', records: { id: 'cases' }, limit: 'reportSend' },
+  'POST /api/emails/[id]/retry': { allow: 'cases:work', records: { id: 'emails' }, body: 'none', limit: 'reportSend' },
   'GET /api/people': { allow: 'cases:read' },
   'GET /api/cases/[id]/replay': { allow: 'training:run', records: { id: 'cases' } },
 

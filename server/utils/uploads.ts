@@ -1,6 +1,7 @@
 // Reading an uploaded file from a multipart request. The checks and storage are the uploads
 // service's (server/services/uploads.ts).
 import type { H3Event } from 'h3'
+import { UNSAFE_TEXT_MESSAGE, hasUnsafeCharacters } from '#shared/schemas/safe-text'
 import { BadInputError, TooLargeError } from '#server/domain/errors'
 import { TOO_LARGE_MESSAGE } from '#server/domain/uploads/upload-rules'
 import { UploadFieldsSchema } from '#shared/schemas/uploads'
@@ -67,6 +68,7 @@ export async function readUploadForm(event: H3Event): Promise<UploadForm> {
   if (files.length > 1) throw new BadInputError('Send one file per upload.')
   const file = files[0]!
   if (typeof file === 'string') throw new BadInputError('The form field "file" must hold a file, not text.')
+  if (hasUnsafeCharacters(file.name)) throw new BadInputError(`File name: ${UNSAFE_TEXT_MESSAGE.toLowerCase()}`, { file: [UNSAFE_TEXT_MESSAGE] })
   const fields = UploadFieldsSchema.safeParse({ purpose: form.get('purpose') || undefined })
   if (!fields.success) throw invalidInput(fields.error)
   return { name: file.name, bytes: Buffer.from(await file.arrayBuffer()), purpose: fields.data.purpose }

@@ -23,7 +23,17 @@ export const UserChangeSchema = z
     name: z.string().trim().min(2).max(120).optional(),
     role: z.enum(ROLES, { error: `Role must be one of: ${ROLES.join(', ')}` }).optional(),
     active: z.boolean().optional(),
+    password: z.string().min(10, 'Use at least 10 characters').max(200).optional(),
   })
   .strict()
   .refine((v) => Object.keys(v).length > 0, { message: 'Nothing to change' })
 export type UserChangeInput = z.infer<typeof UserChangeSchema>
+
+/** `POST /api/auth/password`: the signed-in person changes their own password. */
+export const PasswordChangeSchema = z
+  .object({
+    currentPassword: z.string().min(1, 'Enter your current password').max(200),
+    newPassword: z.string().min(10, 'Use at least 10 characters').max(200),
+  })
+  .strict()
+export type PasswordChangeInput = z.infer<typeof PasswordChangeSchema>

@@ -1,9 +1,10 @@
 import { z } from 'zod'
 import { causeSchema, readingSchema, stageSchema, symptomSchema, testSlugSchema } from './diagnosis'
+import { safeText } from './safe-text'
 import { CASE_STATUSES } from '#shared/types/cases'
 
 const version = z.number().int().nonnegative().optional()
-const text = (max: number) => z.string().trim().max(max, `Keep it under ${max} characters`)
+const text = (max: number) => safeText(max)
 
 /** `POST /api/cases`: open a case on a unit. */
 export const NewCaseSchema = z
@@ -48,7 +49,7 @@ export const RefrigerantTransactionSchema = z
 /** `POST /api/cases/{id}/close`. */
 export const CloseCaseSchema = z
   .object({
-    confirmedCauses: z.array(z.object({ cause: causeSchema, stage: stageSchema.optional() }).strict()).min(1, 'Confirm at least one cause (or "other")'),
+    confirmedCauses: z.array(z.object({ cause: causeSchema, stage: stageSchema.optional() }).strict()).min(1, 'Confirm at least one cause (or "other")').max(20),
     workDone: text(4000).min(3, 'Describe the work done'),
     parts: z.array(text(200).min(1)).max(50).default([]),
     refrigerantTransactions: z.array(RefrigerantTransactionSchema).max(20).default([]),

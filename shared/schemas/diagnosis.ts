@@ -43,7 +43,7 @@ const positive = finite.positive()
 export const stageConfigSchema = z
   .object({
     stage: stageSchema,
-    refrigerant: z.string().min(1),
+    refrigerant: z.string().min(1).max(20),
     chargeG: positive.optional(),
     volumeL: positive.optional(),
     referenceStandingPressureKpa: positive.optional(),
@@ -62,7 +62,7 @@ export const STAGES_OF_KIND: Readonly<Record<UnitKind, readonly Stage[]>> = {
 export const unitConfigSchema = z
   .object({
     kind: unitKindSchema,
-    stages: z.array(stageConfigSchema).min(1),
+    stages: z.array(stageConfigSchema).min(1).max(2, 'A unit has at most two stages'),
     design: z.object({ cabinetC: finite.optional(), cascadeHxC: finite.optional() }).strict().optional(),
   })
   .strict()
@@ -138,6 +138,11 @@ export const testResultSchema = z
   })
   .strict()
 
+/** Caps on what one ranking request may carry: far above any real case, low enough to bound the work. */
+export const MAX_READINGS = 500
+export const MAX_TEST_RESULTS = 200
+export const MAX_SYMPTOMS = 50
+
 export const rankRequestSchema = z
   .object({
     unit: unitConfigSchema,
@@ -148,9 +153,9 @@ export const rankRequestSchema = z
       })
       .strict()
       .optional(),
-    symptoms: z.array(symptomSchema).optional(),
-    readings: z.array(readingSchema).optional(),
-    testResults: z.array(testResultSchema).optional(),
+    symptoms: z.array(symptomSchema).max(MAX_SYMPTOMS, `At most ${MAX_SYMPTOMS} symptoms`).optional(),
+    readings: z.array(readingSchema).max(MAX_READINGS, `At most ${MAX_READINGS} readings a request`).optional(),
+    testResults: z.array(testResultSchema).max(MAX_TEST_RESULTS, `At most ${MAX_TEST_RESULTS} test results a request`).optional(),
   })
   .strict()
   .superRefine((req, ctx) => {

@@ -10,6 +10,8 @@ declare module '#auth-utils' {
   }
   interface UserSession {
     loggedInAt: number
+    /** Id of the server-side session record (table user_sessions). */
+    sid?: string
   }
 }
 

@@ -4,7 +4,8 @@ import type { UserDto } from '#shared/types/api'
 
 export default defineApiHandler(async (event) => {
   const input = await readBodyAs(event, LoginSchema)
-  const { organisationId, ...user } = await signIn(input)
-  await setUserSession(event, { user: { ...user, organisationId }, loggedInAt: Date.now() })
+  const client = { address: getRequestIP(event) ?? 'unknown', userAgent: getRequestHeader(event, 'user-agent') ?? '', lifetimeS: sessionLifetimeS() }
+  const { user: { organisationId, ...user }, sessionId } = await signIn(input, new Date(), client)
+  await setUserSession(event, { user: { ...user, organisationId }, sid: sessionId, loggedInAt: Date.now() })
   return { user: user satisfies UserDto }
 })

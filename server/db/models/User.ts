@@ -18,7 +18,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
     User.init(
       {
         id: { type: DataTypes.INTEGER, primaryKey: true, autoIncrement: true },
-        email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
+        // Unique within the organisation (index users_organisation_email on the lower-cased address).
+        email: { type: DataTypes.STRING(254), allowNull: false },
         name: { type: DataTypes.STRING(120), allowNull: false },
         role: { type: DataTypes.STRING(20), allowNull: false },
         passwordHash: { type: DataTypes.STRING(300), allowNull: false },

@@ -1,4 +1,4 @@
-import { QueryTypes } from 'sequelize'
+import { QueryTypes, type Transaction } from 'sequelize'
 import type { Role } from '#shared/utils/permissions'
 import { Organisation, User } from '../models'
 import { CACHE_STAMP_COLUMNS, cacheStampsFrom, type CacheStampColumns, type CacheStamps } from './cache-stamps'
@@ -16,10 +16,10 @@ const plain = (u: User): UserRecord => ({
   id: u.id, organisationId: u.organisationId, email: u.email, name: u.name, role: u.role, active: u.active, createdAt: u.createdAt,
 })
 
-/** The user with this e-mail and its password hash, or null. */
-export async function findUserForLogin(email: string) {
-  const user = await User.findOne({ where: { email: email.toLowerCase() } })
-  return user ? { ...plain(user), passwordHash: user.passwordHash } : null
+/** The accounts with this e-mail (one per organisation at most) and their password hashes. */
+export async function findUsersForLogin(email: string) {
+  const users = await User.findAll({ where: { email: email.toLowerCase() }, order: [['id', 'ASC']] })
+  return users.map((user) => ({ ...plain(user), passwordHash: user.passwordHash }))
 }
 
 /**
@@ -59,8 +59,20 @@ export async function updateUser(organisationId: number, id: number, changes: Pa
 }
 
 /** True when an account with this e-mail exists anywhere. */
-export async function emailTaken(email: string) {
-  return (await User.count({ where: { email: email.toLowerCase() } })) > 0
+/** True when the organisation already has an account with this e-mail (other organisations are not looked at). */
+export async function emailTakenIn(organisationId: number, email: string) {
+  return (await User.count({ where: { organisationId, email: email.toLowerCase() } })) > 0
+}
+
+/** Sets a user's password hash; false when the user is not in the organisation. */
+export async function setPasswordHash(organisationId: number, id: number, passwordHash: string, transaction?: Transaction): Promise<boolean> {
+  const [count] = await User.update({ passwordHash }, { where: { id, organisationId }, transaction })
+  return count > 0
+}
+
+/** The password hash of a user, or null. */
+export async function passwordHashOf(id: number): Promise<string | null> {
+  return (await User.findByPk(id, { attributes: ['passwordHash'] }))?.passwordHash ?? null
 }
 
 /** Name and time zone of an organisation. */
