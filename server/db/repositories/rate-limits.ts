@@ -18,11 +18,20 @@ const limiters = new Map<string, RateLimiterPostgres>()
 // A small pool of its own: the limiter runs its statements on a connection it holds meanwhile.
 let pool: pg.Pool | undefined
 
+function limiterPool(): pg.Pool {
+  if (!pool) {
+    pool = new pg.Pool({ connectionString: databaseUrl(), max: 3 })
+    // A connection that drops while idle (a database restart) is replaced on the next use; it must not end the process.
+    pool.on('error', () => {})
+  }
+  return pool
+}
+
 function limiterFor(policy: RatePolicy): RateLimiterPostgres {
   let limiter = limiters.get(policy.name)
   if (!limiter) {
     limiter = new RateLimiterPostgres({
-      storeClient: (pool ??= new pg.Pool({ connectionString: databaseUrl(), max: 3 })), storeType: 'pool', tableName: 'rate_limits', tableCreated: true, clearExpiredByTimeout: false,
+      storeClient: limiterPool(), storeType: 'pool', tableName: 'rate_limits', tableCreated: true, clearExpiredByTimeout: false,
       keyPrefix: policy.name, points: policy.points, duration: policy.durationS, blockDuration: policy.blockS ?? 0,
     })
     limiters.set(policy.name, limiter)
