@@ -23,6 +23,7 @@
 //   limit   a rate limit (server/services/rate-limits.ts) each signed-in caller's calls count against.
 import type { RatePolicyName } from '#server/services/rate-limits'
 import type { Permission } from '#shared/utils/permissions'
+import { UPLOAD_MAX_BYTES } from '#shared/utils/uploads'
 
 /** Records looked up by id in the caller's organisation, with their table and id column type. */
 export const RECORD_TABLES = {
@@ -59,8 +60,8 @@ export interface RouteRule {
 
 /** The largest JSON body any route reads. */
 export const MAX_JSON_BYTES = 1024 * 1024
-/** Multipart bodies: one file of at most 10 MB and its form fields. */
-export const MAX_UPLOAD_BYTES = 11 * 1024 * 1024
+/** Multipart bodies: one file of at most the upload limit and its form fields. */
+export const MAX_UPLOAD_BYTES = UPLOAD_MAX_BYTES + 1024 * 1024
 /** A data-logger CSV: 64 MB (a million rows of several columns fit in about 50 MB). */
 export const MAX_LOGGER_BYTES = 64 * 1024 * 1024
 /** A whole knowledge base as one JSON bundle. */
