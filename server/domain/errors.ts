@@ -63,3 +63,24 @@ export class RateLimitedError extends Error {
     super(message)
   }
 }
+
+/**
+ * Well-formed input that cannot be physically true (a temperature below absolute zero), or that a
+ * safety gate refuses (brazing on a flammable stage before the checklist is done): 422 with the
+ * messages beside their fields. Nothing is saved.
+ */
+export class ImplausibleInputError extends InvalidStateError {
+  constructor(message: string, readonly fieldErrors: FieldErrors) {
+    super(message)
+  }
+}
+
+/**
+ * Readings that are possible but far outside what the unit is built for: 422 until the technician
+ * confirms each with a reason (`confirmations`). Nothing is saved.
+ */
+export class ConfirmationNeededError extends InvalidStateError {
+  constructor(message: string, readonly fieldErrors: FieldErrors, readonly confirmationNeeded: { index: number; message: string }[]) {
+    super(message)
+  }
+}

@@ -7,10 +7,18 @@ import type { CacheStamps } from '#server/db/repositories/cache-stamps'
 import { caseUnitId, findCase, findCases, readCaseState, type LockedCase } from '#server/db/repositories/case-records'
 import { appendEvents, commitIfUnchanged, insertCase, insertTransactions, saveCase } from '#server/db/repositories/case-writes'
 import { findUnit } from '#server/db/repositories/equipment'
-import { assertWritable, planAddendum, planClosing, planNote, planReadings, planSymptoms, planTestResult, type CaseChange } from '#server/domain/cases/case-changes'
+import {
+  assertWritable, planAddendum, planClosing, planNote, planOutcomeCorrection, planReadingCorrection, planReadings, planReportPhotos, planStep, planStepStrike,
+  planSymptoms, planTestResult, type CaseChange,
+} from '#server/domain/cases/case-changes'
 import { rankingAsShown, rankingEvents, rankRequestFor, type NewEvent } from '#server/domain/cases/case-record'
 import { ConflictError, NotFoundError } from '#server/domain/errors'
-import type { AddReadingsInput, AddTestResultInput, CaseListQuery, CloseCaseInput, NewCaseInput, NoteInput, SetSymptomsInput } from '#shared/schemas/cases'
+import type {
+  AddReadingsInput, AddTestResultInput, CaseListQuery, CloseCaseInput, NewCaseInput, NoteInput, OutcomeCorrectionInput, ReadingCorrectionInput, SetSymptomsInput,
+  StrikeInput,
+} from '#shared/schemas/cases'
+import type { AddRepairStepInput } from '#shared/schemas/repair-steps'
+import { siteAtmosphere } from '#shared/utils/format'
 import type { CaseDto, CaseListItem } from '#shared/types/cases'
 import type { Page, UnitDto } from '#shared/types/equipment-dto'
 import { rankInContext, rankingContext, stampsFor } from './diagnosis'
@@ -140,9 +148,49 @@ async function changeCaseLocked<C extends CaseChange>(
   return record(actor, caseId, unit)
 }
 
-/** `POST /api/cases/{id}/readings`: appends readings and re-ranks. */
+const atmosphereOf = (unit: UnitDto) => siteAtmosphere(unit.siteAltitudeM).kpa
+
+/**
+ * `POST /api/cases/{id}/readings`: appends readings and re-ranks. Impossible readings are a 422 and
+ * readings far outside the unit's design envelope a 422 until confirmed; the case is then unchanged.
+ */
 export function addReadings(actor: Actor, input: AddReadingsInput & { caseId: number }, now: Date): Promise<CaseDto> {
-  return changeCase(actor, input.caseId, input.version, now, (current, unit) => planReadings(unit, current, input.readings, actor.id, now))
+  return changeCase(actor, input.caseId, input.version, now, (current, unit) =>
+    planReadings(unit, current, input.readings, actor.id, now, { atmosphericKpa: atmosphereOf(unit), confirmations: input.confirmations }))
+}
+
+/** `POST /api/cases/{id}/readings/{index}/correction`: strikes out or corrects a reading with a reason, and re-ranks. */
+export function correctReading(actor: Actor, input: ReadingCorrectionInput & { caseId: number; index: number }, now: Date): Promise<CaseDto> {
+  const { caseId, version, ...correction } = input
+  return changeCase(actor, caseId, version, now, (current, unit) => planReadingCorrection(unit, current, correction, actor.id, now, atmosphereOf(unit)))
+}
+
+/** `POST /api/cases/{id}/test-results/{index}/correction`: strikes out or corrects a test outcome with a reason, and re-ranks. */
+export function correctOutcome(actor: Actor, input: OutcomeCorrectionInput & { caseId: number; index: number }, now: Date): Promise<CaseDto> {
+  const { caseId, version, ...correction } = input
+  return changeCase(actor, caseId, version, now, (current) => planOutcomeCorrection(current, correction, actor.id, now))
+}
+
+/** `POST /api/cases/{id}/steps`: records a repair or verification step with its figures and verdict. */
+export function addRepairStep(actor: Actor, input: AddRepairStepInput & { caseId: number }, now: Date): Promise<CaseDto> {
+  return changeCase(actor, input.caseId, input.version, now, (current, unit) => planStep(unit, current, input.step, actor.id, now, atmosphereOf(unit)))
+}
+
+/** `POST /api/cases/{id}/steps/{index}/strike`: strikes out a step recorded by mistake. */
+export function strikeRepairStep(actor: Actor, input: StrikeInput & { caseId: number; index: number }, now: Date): Promise<CaseDto> {
+  return changeCase(actor, input.caseId, input.version, now, (current) => planStepStrike(current, input, actor.id, now))
+}
+
+/** `PUT /api/cases/{id}/report/photos`: the photos of the case shown in its report and PDF (open or closed case). */
+export async function setReportPhotos(actor: Actor, input: { caseId: number; uploadIds: number[] }, now: Date): Promise<CaseDto> {
+  const found = await record(actor, input.caseId)
+  const images = found.uploads.filter((u) => u.mime.startsWith('image/')).map((u) => u.id)
+  const { reportPhotoIds, events } = planReportPhotos(images, input.uploadIds)
+  await useDb().transaction(async (transaction) => {
+    await saveCase(input.caseId, { reportPhotoIds }, transaction)
+    await appendEvents(input.caseId, actor.id, events, transaction, now)
+  })
+  return record(actor, input.caseId, found.unit)
 }
 
 /** `POST /api/cases/{id}/test-results`: records a test outcome and re-ranks. */
@@ -177,11 +225,11 @@ export async function addAddendum(actor: Actor, input: NoteInput & { caseId: num
  * background jobs, so closing never waits for, or fails because of, e-mail.
  */
 export function closeCase(actor: Actor, input: CloseCaseInput & { caseId: number }, now: Date): Promise<CaseDto> {
-  const { caseId, version, ...closing } = input
+  const { caseId, version, sendReport, ...closing } = input
   return changeCaseLocked(actor, caseId, version, now, (_current, unit) => planClosing(unit, closing, actor.id, now), async (transaction, unit, change) => {
     await insertTransactions(
       { organisationId: actor.organisationId, caseId, unitId: unit.id, byUserId: actor.id, at: now }, change.closure.refrigerantTransactions, transaction,
     )
-    return (await queueReportEmails(actor, { caseId, unit }, transaction)).events
+    return sendReport === false ? [] : (await queueReportEmails(actor, { caseId, unit }, transaction)).events
   })
 }

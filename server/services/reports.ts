@@ -6,7 +6,10 @@ import type { CacheStamps } from '#server/db/repositories/cache-stamps'
 import type { ServedFile } from '#server/utils/file-response'
 import { findCase } from '#server/db/repositories/case-records'
 import { appendEvents } from '#server/db/repositories/case-writes'
-import { caseEmails, emailForDelivery, findEmail, insertEmails, recordAttempt, reportRecipients, setEmailJob } from '#server/db/repositories/emails'
+import { caseEmails, emailForDelivery, findEmail, insertEmails, recordAttempt, reportRecipients, setEmailJob, siteContactsOfUnit } from '#server/db/repositories/emails'
+import { findUploadFile } from '#server/db/repositories/uploads'
+import type { PdfPhoto } from '#server/utils/report-pdf'
+import sharp from 'sharp'
 import { organisationSettings } from '#server/db/repositories/users'
 import type { NewEvent } from '#server/domain/cases/case-record'
 import { ConflictError, InvalidStateError, NotFoundError } from '#server/domain/errors'
@@ -20,8 +23,31 @@ import { cancelJob, defineJob, enqueueJob } from './jobs'
 import type { Actor } from './types'
 
 async function reportOf(c: CaseDto, organisationId: number, stamps?: CacheStamps): Promise<ServiceReport> {
-  const [org, titles] = await Promise.all([organisationSettings(organisationId), knowledgeBaseTitles(organisationId, stamps)])
-  return buildServiceReport(c, { organisation: org.name, timeZone: org.timeZone, atmosphericKpa: siteAtmosphere(c.unit.siteAltitudeM).kpa, titles })
+  const [org, titles, contacts] = await Promise.all([organisationSettings(organisationId), knowledgeBaseTitles(organisationId, stamps), siteContactsOfUnit(organisationId, c.unit.id)])
+  const recipients = contacts.map((k) => ({ name: k.name, email: k.email, preselected: k.receivesReports }))
+  return buildServiceReport(c, { organisation: org.name, timeZone: org.timeZone, atmosphericKpa: siteAtmosphere(c.unit.siteAltitudeM).kpa, titles, recipients })
+}
+
+/** Longest side of a photo in the PDF, in pixels: sharp enough on paper, small enough to e-mail. */
+const PDF_PHOTO_PX = 1400
+
+/** The photos picked for the report, as JPEG for the PDF; a photo whose file is gone is left out. */
+async function reportPhotos(organisationId: number, report: ServiceReport): Promise<PdfPhoto[]> {
+  const out: PdfPhoto[] = []
+  for (const photo of report.photos) {
+    const record = await findUploadFile(organisationId, photo.id)
+    if (!record) continue
+    const raw = await useStorage('uploads').getItemRaw<ArrayBuffer | Uint8Array>(record.storageKey)
+    if (!raw) continue
+    const bytes = Buffer.isBuffer(raw) ? raw : Buffer.from(raw instanceof Uint8Array ? raw : new Uint8Array(raw))
+    const jpeg = await sharp(bytes).rotate().resize(PDF_PHOTO_PX, PDF_PHOTO_PX, { fit: 'inside', withoutEnlargement: true }).flatten({ background: '#ffffff' }).jpeg({ quality: 80 }).toBuffer()
+    out.push({ caption: photo.caption, bytes: jpeg })
+  }
+  return out
+}
+
+async function reportPdfBytes(organisationId: number, report: ServiceReport): Promise<Buffer> {
+  return renderReportPdf(report, await reportPhotos(organisationId, report))
 }
 
 async function caseOf(organisationId: number, caseId: number): Promise<CaseDto> {
@@ -38,7 +64,7 @@ export async function serviceReport(actor: Actor, input: { caseId: number }): Pr
 /** `GET /api/cases/{id}/report.pdf`: the same report as a PDF, with the file name downloads and e-mails use. */
 export async function serviceReportPdf(actor: Actor, input: { caseId: number }): Promise<ServedFile> {
   const report = await serviceReport(actor, input)
-  return { bytes: await renderReportPdf(report), mime: 'application/pdf', name: reportPdfName(input.caseId) }
+  return { bytes: await reportPdfBytes(actor.organisationId, report), mime: 'application/pdf', name: reportPdfName(input.caseId) }
 }
 
 /** Delivers one report e-mail; thrown errors are retried by the queue. */
@@ -58,7 +84,7 @@ export const reportEmailJob = defineJob<{ emailId: number }, { messageId: string
     await job.progress(0.2)
     try {
       const report = await reportOf(c, email.organisationId)
-      const pdf = await renderReportPdf(report)
+      const pdf = await reportPdfBytes(email.organisationId, report)
       await job.progress(0.6)
       const info = await mailer().sendMail({
         from: mailFrom(), to: email.toAddress, subject: email.subject, text: reportEmailText(report),
@@ -99,11 +125,15 @@ export async function queueReportEmails(
   return { emailIds, jobIds, events: [{ type: 'report-queued', payload: { to } }] }
 }
 
-/** `POST /api/cases/{id}/report/send`: queues the report to one address, or to the site's report contacts (422 when there are none). */
-export async function sendServiceReport(actor: Actor, input: { caseId: number; to?: string }, now: Date): Promise<ReportSendResult> {
+/**
+ * `POST /api/cases/{id}/report/send`: queues the report to the recipients picked on the preview, to
+ * one address, or to the site's report contacts (422 when there are none).
+ */
+export async function sendServiceReport(actor: Actor, input: { caseId: number; to?: string; recipients?: string[] }, now: Date): Promise<ReportSendResult> {
   const c = await caseOf(actor.organisationId, input.caseId)
+  const picked = input.recipients?.length ? [...new Set(input.recipients.map((r) => r.toLowerCase()))] : input.to ? [input.to] : undefined
   const queued = await useDb().transaction(async (transaction) => {
-    const result = await queueReportEmails(actor, { caseId: c.id, unit: c.unit, to: input.to ? [input.to] : undefined }, transaction)
+    const result = await queueReportEmails(actor, { caseId: c.id, unit: c.unit, to: picked }, transaction)
     if (!result.emailIds.length) throw new InvalidStateError('No one at this site receives reports. Enter an e-mail address to send it to.')
     await appendEvents(c.id, actor.id, result.events, transaction, now)
     return result

@@ -3,7 +3,7 @@
 // defineApiHandler (server/utils/api-handler.ts), which passes every error through toHttpError.
 import { RankInputError } from '#server/domain/diagnosis/rank'
 import {
-  BadInputError, ConflictError, FieldConflictError, FieldNotFoundError, ForbiddenError, InvalidStateError, NotFoundError, RateLimitedError, TooLargeError,
+  BadInputError, ConfirmationNeededError, ConflictError, ImplausibleInputError, FieldConflictError, FieldNotFoundError, ForbiddenError, InvalidStateError, NotFoundError, RateLimitedError, TooLargeError,
   UnauthenticatedError, UnavailableError, UnsupportedTypeError,
 } from '#server/domain/errors'
 import { OutOfRangeError, UnitError, UnknownRefrigerantError } from '#shared/utils/properties'
@@ -40,6 +40,8 @@ function dataOf(error: Error): Record<string, unknown> | undefined {
   if (error instanceof RankInputError) return { fieldErrors: { testResults: error.issues } }
   if (error instanceof BadInputError && error.fieldErrors) return { fieldErrors: error.fieldErrors }
   if (error instanceof RateLimitedError) return { retryAfterS: error.retryAfterS }
+  if (error instanceof ConfirmationNeededError) return { fieldErrors: error.fieldErrors, confirmationNeeded: error.confirmationNeeded }
+  if (error instanceof ImplausibleInputError) return { fieldErrors: error.fieldErrors }
   // Field-tied errors carry the same `fieldErrors` shape as a 400, so forms place them beside the field.
   if (error instanceof FieldConflictError || error instanceof FieldNotFoundError) return { fieldErrors: { [error.field]: [error.message] } }
   return undefined

@@ -1,24 +1,41 @@
-import type { Cause, RankResponse, Reading, Stage, Symptom, TestResult } from './diagnosis'
+import type { Cause, RankResponse, Reading, ReadingUnit, Stage, Symptom, TestResult } from './diagnosis'
+import type { RepairStepRecord } from './repair-steps'
 import type { UnitDto } from './equipment-dto'
 import type { UploadDto } from './uploads'
 
 export const CASE_STATUSES = ['open', 'closed'] as const
 export type CaseStatus = (typeof CASE_STATUSES)[number]
 
+/** Who struck out or corrected an entry, when and why. The timeline keeps the change as its own event. */
+export interface Revision {
+  at: string
+  by: number | null
+  reason: string
+}
+
 /** A reading as the case stores it: the entered value and unit, when and by whom. */
 export interface CaseReading extends Reading {
   at: string
   by: number | null
+  /** Kept although far outside the unit's design envelope: what was unusual and the technician's reason. */
+  confirmedOutside?: { message: string; reason: string }
+  /** Struck out: kept in the record, left out of the diagnosis and shown struck in the report. */
+  struck?: Revision
+  /** Corrected: `value`/`unit` are the corrected figure, `from` what was first entered. */
+  corrected?: Revision & { from: { value: number | boolean; unit: ReadingUnit } }
 }
 export interface CaseTestResult extends TestResult {
   stage?: Stage
   at: string
   by: number | null
+  struck?: Revision
+  corrected?: Revision & { from: { outcome: string } }
 }
 
 export const CASE_EVENT_TYPES = [
   'case-opened', 'symptoms-set', 'reading-entered', 'test-proposed', 'outcome-recorded', 'note', 'photo',
   'ranking-snapshot', 'case-closed', 'addendum', 'report-queued', 'report-sent', 'report-failed',
+  'reading-struck', 'reading-corrected', 'outcome-struck', 'outcome-corrected', 'step-recorded', 'step-struck', 'report-photos-set',
 ] as const
 export type CaseEventType = (typeof CASE_EVENT_TYPES)[number]
 
@@ -41,8 +58,12 @@ export interface RefrigerantTransactionDto {
   at?: string
 }
 
+/** How a confirmed cause was settled: a definitive test, the repair that cured it, or judgement only. */
+export const CONFIRMATION_BASES = ['test', 'repair', 'judgement'] as const
+export type ConfirmationBasis = (typeof CONFIRMATION_BASES)[number]
+
 export interface CaseClosure {
-  confirmedCauses: { cause: Cause; stage?: Stage }[]
+  confirmedCauses: { cause: Cause; stage?: Stage; basis?: ConfirmationBasis }[]
   workDone: string
   parts: string[]
   refrigerantTransactions: RefrigerantTransactionDto[]
@@ -85,6 +106,10 @@ export interface CaseDto {
   transactions: RefrigerantTransactionDto[]
   uploads: UploadDto[]
   emails: EmailDto[]
+  /** Repair and verification steps (pressure hold, evacuation, hot work, recharge), in the order recorded. */
+  steps: RepairStepRecord[]
+  /** Uploads the technician chose to show in the report and its PDF. */
+  reportPhotoIds: number[]
 }
 
 /** A row of the case list. */

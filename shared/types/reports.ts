@@ -7,11 +7,37 @@ export interface ReportRow {
   label: string
   value: string
   note?: string
+  /** The value is a figure (set in the monospaced face); words are set in the text face. */
+  figure?: boolean
+  /** When it was read or done, in the organisation's time zone, and by whom. */
+  time?: string
+  by?: string
+  /** Struck out: shown struck through, with the reason in the note. */
+  struck?: boolean
+  /** A detail of the row above it (a step's figures). */
+  detail?: boolean
 }
 
 export interface ReportSection {
   title: string
   rows: ReportRow[]
+  /** `table`: rows are laid out as a table of readings with their time and who took them. */
+  layout?: 'list' | 'table'
+}
+
+/** A photo the technician picked for the report. */
+export interface ReportPhoto {
+  id: number
+  caption: string
+  url: string
+  thumbUrl: string | null
+}
+
+/** Someone who may receive the report: the site's contacts, those who receive reports preselected. */
+export interface ReportRecipient {
+  name: string
+  email: string
+  preselected: boolean
 }
 
 export interface ServiceReport {
@@ -27,6 +53,11 @@ export interface ServiceReport {
   when: string
   sections: ReportSection[]
   safetyNotes: string[]
+  photos: ReportPhoto[]
+  /** The customer's acknowledgement line, printed with space to sign. */
+  acknowledgement: string
+  /** Who the report can go to (not printed). */
+  recipients: ReportRecipient[]
 }
 
 /** Answer of `POST /api/cases/{id}/report/send`: how many e-mails were queued, all of the case's e-mails, and the jobs delivering the new ones. */

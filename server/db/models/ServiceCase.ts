@@ -13,6 +13,8 @@ export class ServiceCase extends Model<InferAttributes<ServiceCase>, InferCreati
   declare symptoms: CreationOptional<string[]>
   declare readings: CreationOptional<unknown[]>
   declare testResults: CreationOptional<unknown[]>
+  declare steps: CreationOptional<unknown[]>
+  declare reportPhotoIds: CreationOptional<number[]>
   declare notes: CreationOptional<string>
   declare ranking: unknown | null
   declare closure: unknown | null
@@ -33,6 +35,8 @@ export class ServiceCase extends Model<InferAttributes<ServiceCase>, InferCreati
         symptoms: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         readings: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         testResults: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+        steps: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+        reportPhotoIds: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         ranking: { type: DataTypes.JSONB, allowNull: true },
         closure: { type: DataTypes.JSONB, allowNull: true },

@@ -2,6 +2,7 @@
 // case list with filters, and a unit's refrigerant log.
 import { Op, QueryTypes, type Transaction, type WhereOptions } from 'sequelize'
 import type { CaseClosure, CaseDto, CaseEventDto, CaseListItem, CaseReading, CaseTestResult, EmailDto, RefrigerantTransactionDto } from '#shared/types/cases'
+import type { RepairStepRecord } from '#shared/types/repair-steps'
 import type { RankResponse, Symptom } from '#shared/types/diagnosis'
 import type { UnitDto } from '#shared/types/equipment-dto'
 import type { CaseState } from '#server/domain/cases/case-record'
@@ -38,7 +39,7 @@ export async function readCaseState(organisationId: number, id: number, lockIn?:
   return {
     id: c.id, organisationId: c.organisationId, unitId: c.unitId, status: c.status, lockVersion: c.lockVersion,
     symptoms: c.symptoms as Symptom[], readings: c.readings as CaseReading[], testResults: c.testResults as CaseTestResult[],
-    ranking: c.ranking as RankResponse | null, notes: c.notes,
+    steps: (c.steps ?? []) as RepairStepRecord[], ranking: c.ranking as RankResponse | null, notes: c.notes,
   }
 }
 
@@ -46,7 +47,7 @@ export async function readCaseState(organisationId: number, id: number, lockIn?:
 // refrigerant transactions, uploads and e-mails, each aggregated as JSON. This runs after every
 // step a technician takes, so it is kept to a single statement.
 const CASE_RECORD_SQL = `
-SELECT c.id, c.unit_id, c.status, c.complaint, c.symptoms, c.readings, c.test_results, c.ranking, c.lock_version,
+SELECT c.id, c.unit_id, c.status, c.complaint, c.symptoms, c.readings, c.test_results, c.steps, c.report_photo_ids, c.ranking, c.lock_version,
        c.opened_at, c.closed_at, c.notes, c.closure, t.name AS technician,
        (SELECT coalesce(json_agg(json_build_object('id', e.id, 'at', e.at, 'type', e.type, 'byUserId', e.by_user_id, 'by', u.name, 'payload', e.payload) ORDER BY e.id), '[]')
           FROM case_events e LEFT JOIN users u ON u.id = e.by_user_id WHERE e.case_id = c.id) AS events,
@@ -61,7 +62,7 @@ SELECT c.id, c.unit_id, c.status, c.complaint, c.symptoms, c.readings, c.test_re
 
 interface CaseRecordRow {
   id: number; unit_id: number; status: CaseDto['status']; complaint: string; symptoms: Symptom[]; readings: CaseReading[]
-  test_results: CaseTestResult[]; ranking: RankResponse | null; lock_version: number; opened_at: Date; closed_at: Date | null
+  test_results: CaseTestResult[]; steps: RepairStepRecord[]; report_photo_ids: number[]; ranking: RankResponse | null; lock_version: number; opened_at: Date; closed_at: Date | null
   notes: string; closure: CaseClosure | null; technician: string | null
   events: { id: number; at: string; type: CaseEventDto['type']; byUserId: number | null; by: string | null; payload: Record<string, unknown> }[]
   transactions: (Omit<RefrigerantTransactionDto, 'at'> & { at: string })[]
@@ -101,6 +102,8 @@ export async function findCase(organisationId: number, id: number, knownUnit?: U
     transactions: c.transactions.map((t) => ({ ...t, at: isoText(t.at)! })),
     uploads: c.uploads.map(({ thumbKey, ...u }) => ({ ...u, ...uploadUrls(u.id, thumbKey), createdAt: isoText(u.createdAt)! })),
     emails: c.emails.map((m) => ({ ...m, sentAt: isoText(m.sentAt) })),
+    steps: c.steps ?? [],
+    reportPhotoIds: c.report_photo_ids ?? [],
   }
 }
 

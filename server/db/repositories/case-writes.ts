@@ -44,9 +44,9 @@ export async function saveCase(id: number, changes: CaseFieldChanges, transactio
 
 const COLUMNS: Record<string, string> = {
   symptoms: 'symptoms', readings: 'readings', testResults: 'test_results', ranking: 'ranking', notes: 'notes', status: 'status',
-  closure: 'closure', confirmedCauses: 'confirmed_causes', closedAt: 'closed_at',
+  closure: 'closure', confirmedCauses: 'confirmed_causes', closedAt: 'closed_at', steps: 'steps', reportPhotoIds: 'report_photo_ids',
 }
-const JSON_COLUMNS = new Set(['symptoms', 'readings', 'testResults', 'ranking', 'closure', 'confirmedCauses'])
+const JSON_COLUMNS = new Set(['symptoms', 'readings', 'testResults', 'ranking', 'closure', 'confirmedCauses', 'steps', 'reportPhotoIds'])
 
 /** SET clauses of a plain UPDATE: JSON columns go as JSON text, and the version goes up with them. */
 function setClauses(changes: CaseFieldChanges, bind: unknown[]): string {

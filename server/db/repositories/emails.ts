@@ -20,6 +20,14 @@ export async function reportRecipients(organisationId: number, unitId: number, t
   return contacts.map((c) => c.email)
 }
 
+/** The contacts of a unit's site with an e-mail address, those who receive reports first. */
+export async function siteContactsOfUnit(organisationId: number, unitId: number): Promise<{ name: string; email: string; receivesReports: boolean }[]> {
+  const unit = await Unit.findOne({ where: { id: unitId, organisationId } })
+  if (!unit) return []
+  const contacts = await Contact.findAll({ where: { organisationId, siteId: unit.siteId }, order: [['receivesReports', 'DESC'], ['name', 'ASC']] })
+  return contacts.filter((c) => c.email).map((c) => ({ name: c.name, email: c.email, receivesReports: c.receivesReports }))
+}
+
 /** Records one pending report e-mail per recipient; returns their ids. */
 export async function insertEmails(organisationId: number, caseId: number, to: string[], subject: string, transaction: Transaction): Promise<number[]> {
   const rows = await OutboundEmail.bulkCreate(

@@ -1,6 +1,7 @@
 // A service case as data: its state, the events of its timeline, and how it turns into a ranking
 // request. What a change may do is planned in case-changes.ts. No I/O here.
 import type { CaseReading, CaseTestResult } from '#shared/types/cases'
+import type { RepairStepRecord } from '#shared/types/repair-steps'
 import type { RankRequest, RankResponse, Reading, Symptom, TestResult } from '#shared/types/diagnosis'
 import type { UnitDto } from '#shared/types/equipment-dto'
 import { siteAtmosphere } from '#shared/utils/format'
@@ -11,6 +12,8 @@ export interface CaseState {
   symptoms: Symptom[]
   readings: CaseReading[]
   testResults: CaseTestResult[]
+  /** Repair and verification steps; absent in states read before steps existed. */
+  steps?: RepairStepRecord[]
 }
 
 export interface NewEvent {
@@ -18,17 +21,32 @@ export interface NewEvent {
   payload: Record<string, unknown>
 }
 
-/** The latest reading of each quantity and stage: what the unit shows now. */
+/**
+ * The latest reading of each quantity, stage and phase: what the unit showed at each point of the
+ * job. Struck-out readings are left out; corrected ones count with their corrected figure.
+ */
 export function latestReadings(readings: CaseReading[]): Reading[] {
   const latest = new Map<string, Reading>()
-  for (const { at: _at, by: _by, ...reading } of readings) latest.set(`${reading.quantity}|${reading.stage ?? ''}`, reading)
+  for (const r of readings) {
+    if (r.struck) continue
+    const reading: Reading = { quantity: r.quantity, value: r.value, unit: r.unit }
+    if (r.stage) reading.stage = r.stage
+    if (r.phase) reading.phase = r.phase
+    latest.set(`${reading.quantity}|${reading.stage ?? ''}|${reading.phase ?? 'diagnosis'}`, reading)
+  }
   return [...latest.values()]
 }
 
-/** The latest outcome of each test and stage. */
+/** The latest outcome of each test, stage and phase; struck-out outcomes are left out. */
 export function latestTestResults(results: CaseTestResult[]): TestResult[] {
   const latest = new Map<string, TestResult>()
-  for (const { at: _at, by: _by, ...result } of results) latest.set(`${result.test}|${result.stage ?? ''}`, result)
+  for (const r of results) {
+    if (r.struck) continue
+    const result: TestResult = { test: r.test, outcome: r.outcome }
+    if (r.stage) result.stage = r.stage
+    if (r.phase) result.phase = r.phase
+    latest.set(`${result.test}|${result.stage ?? ''}|${result.phase ?? ''}`, result)
+  }
   return [...latest.values()]
 }
 

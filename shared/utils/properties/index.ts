@@ -7,7 +7,7 @@ export { DESIGNATIONS, designationsMatching, findRefrigerant, isDesignation, lis
 export type { Designation, RefrigerantFamily, RefrigerantInfo } from './fluids'
 export { OutOfRangeError, UnitError, UnknownRefrigerantError } from './errors'
 export { gasDensity, glideK, pressureFromDensity, saturatedLiquidDensity, saturationPressure, saturationTemperature } from './properties'
-export { ABOVE_CRITICAL_AT_AMBIENT, ABOVE_SATURATION_MARGIN, ambientAtStandingPressure, assertWithinEos, chargeFromStandingPressure, shiftStandingPressure, standingPressureFromCharge } from './standing'
+export { ABOVE_CRITICAL_AT_AMBIENT, ABOVE_SATURATION_MARGIN, ambientAtStandingPressure, assertWithinEos, chargeFromStandingPressure, eosLimits, shiftStandingPressure, standingPressureFromCharge } from './standing'
 export type { StandingPhase, StandingResult } from './standing'
 export {
   ALL_PRESSURE_UNITS, PRESSURE_UNIT_LABELS, PRESSURE_UNITS, STANDARD_ATMOSPHERE_KPA, TEMPERATURE_UNITS, VACUUM_UNITS,

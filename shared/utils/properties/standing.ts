@@ -186,6 +186,16 @@ export function assertWithinEos(designation: Designation, r: Pick<StandingResult
   }
 }
 
+/**
+ * The states a fluid's equation of state covers: from its lowest temperature (the triple point of a
+ * pure fluid, the fitted range of a blend) to its highest, and pressures up to its limit. A state
+ * outside these is not one the refrigerant can be in as far as its reference equation knows.
+ */
+export function eosLimits(designation: Designation): { minC: number; maxC: number; maxKpa: number } {
+  const m = fluidModel(designation)
+  return { minC: m.Tmin - K0, maxC: m.Tmax - K0, maxKpa: m.pmax / 1000 }
+}
+
 /** Standing pressure (absolute kPa) of a known charge (g) in a known internal volume (L) at ambient (°C). */
 export function standingPressureFromCharge(i: { designation: Designation; ambientC: number; volumeL: number; chargeG: number }): StandingResult {
   const m = fluidModel(i.designation)

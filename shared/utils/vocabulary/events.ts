@@ -10,6 +10,8 @@ import { stageLabel } from './stages'
 import { symptomLabel } from './symptoms'
 import { outcomeLabel, testLabel } from './tests'
 import { inPlainWords } from './text'
+import { READING_PHASE_WORDS, STEP_VERDICT_WORDS, repairStepLabel } from './repair-steps'
+import type { RepairStepKind, StepVerdict } from '#shared/types/repair-steps'
 import { NO_TITLES, type KnowledgeBaseTitles } from './titles'
 import type { WordForm, WordLabel } from './words'
 
@@ -28,6 +30,13 @@ export const EVENT_WORDS: Readonly<Record<CaseEventType, WordLabel>> = {
   'report-queued': { short: 'Report queued', long: 'Report queued for e-mail' },
   'report-sent': { short: 'Report sent', long: 'Report e-mailed' },
   'report-failed': { short: 'Report not sent', long: 'Report e-mail failed' },
+  'reading-struck': { short: 'Struck out', long: 'Reading struck out' },
+  'reading-corrected': { short: 'Corrected', long: 'Reading corrected' },
+  'outcome-struck': { short: 'Struck out', long: 'Test outcome struck out' },
+  'outcome-corrected': { short: 'Corrected', long: 'Test outcome corrected' },
+  'step-recorded': { short: 'Step', long: 'Repair step recorded' },
+  'step-struck': { short: 'Struck out', long: 'Repair step struck out' },
+  'report-photos-set': { short: 'Report photos', long: 'Photos chosen for the report' },
 }
 
 /** "Case opened". */
@@ -50,8 +59,31 @@ export function eventDetail(event: Pick<CaseEventDto, 'type'> & Payload, titles:
       return ((p.symptoms as string[] | undefined) ?? []).map((s) => symptomLabel(s)).join(', ') || 'none'
     case 'reading-entered': {
       const reading = { quantity: p.quantity as Quantity, stage: (p.stage as Stage | undefined) ?? undefined }
-      return `${readingName(reading)}: ${formatReading({ value: p.value as number | boolean, unit: p.unit as ReadingUnit })}`
+      const phase = p.phase && p.phase !== 'diagnosis' ? ` (${READING_PHASE_WORDS[p.phase as keyof typeof READING_PHASE_WORDS]?.toLowerCase() ?? ''})` : ''
+      const outside = (p.confirmedOutside as { reason?: string } | undefined)?.reason
+      return `${readingName(reading)}: ${formatReading({ value: p.value as number | boolean, unit: p.unit as ReadingUnit })}${phase}${outside ? `; confirmed outside the design range: ${outside}` : ''}`
     }
+    case 'reading-struck': {
+      const reading = { quantity: p.quantity as Quantity, stage: (p.stage as Stage | undefined) ?? undefined }
+      return `${readingName(reading)}: ${formatReading({ value: p.value as number | boolean, unit: p.unit as ReadingUnit })} struck out (${str(p.reason)})`
+    }
+    case 'reading-corrected': {
+      const reading = { quantity: p.quantity as Quantity, stage: (p.stage as Stage | undefined) ?? undefined }
+      const from = p.from as { value: number | boolean; unit: ReadingUnit } | undefined
+      return `${readingName(reading)}: ${from ? formatReading(from) : '?'} corrected to ${formatReading({ value: p.value as number | boolean, unit: p.unit as ReadingUnit })} (${str(p.reason)})`
+    }
+    case 'outcome-struck':
+      return `${test(p.test)}${onStage(p.stage)}: ${outcomeLabel(str(p.test), str(p.outcome), { label: titles.outcomes[str(p.test)]?.[str(p.outcome)] })} struck out (${str(p.reason)})`
+    case 'outcome-corrected': {
+      const label = (o: string) => outcomeLabel(str(p.test), o, { label: titles.outcomes[str(p.test)]?.[o] })
+      return `${test(p.test)}${onStage(p.stage)}: ${label(str(p.from))} corrected to ${label(str(p.outcome))} (${str(p.reason)})`
+    }
+    case 'step-recorded':
+      return `${repairStepLabel(p.kind as RepairStepKind)}${onStage(p.stage)}: ${STEP_VERDICT_WORDS[p.verdict as StepVerdict] ?? ''}. ${str(p.summary)}`
+    case 'step-struck':
+      return `${repairStepLabel(p.kind as RepairStepKind)}${onStage(p.stage)} struck out (${str(p.reason)})`
+    case 'report-photos-set':
+      return `${((p.uploadIds as number[] | undefined) ?? []).length} photo(s) in the report`
     case 'test-proposed':
       return `${test(p.test)}${onStage(p.stage)}${typeof p.minutes === 'number' ? ` (${formatDuration(p.minutes)})` : ''}`
     case 'outcome-recorded': {

@@ -30,3 +30,7 @@ export {
   cylinderPurposeLabel, dutyKindLabel,
 } from './compliance'
 export { KB_AUDIT_ACTION_WORDS, KB_VERSION_STATUS_WORDS, kbAuditActionLabel, kbVersionStatusLabel } from './knowledge'
+export {
+  CONFIRMATION_BASIS_WORDS, HOLD_GAS_WORDS, HOT_WORK_CHECK_WORDS, READING_PHASE_WORDS, RECHARGE_METHOD_WORDS, REPAIR_STEP_WORDS, STEP_VERDICT_WORDS,
+  repairStepLabel,
+} from './repair-steps'

@@ -7,8 +7,8 @@ import type { ReportSendResult } from '#shared/types/reports'
 export default defineApiHandler(async (event) => {
   const actor = await requireUser(event, 'cases:work')
   const { id } = await readParamsAs(event, IdParamsSchema)
-  const { to } = await readBodyAs(event, SendReportSchema)
-  const sent = await sendServiceReport(actor, { caseId: id, to }, new Date())
+  const { to, recipients } = await readBodyAs(event, SendReportSchema)
+  const sent = await sendServiceReport(actor, { caseId: id, to, recipients }, new Date())
   setResponseStatus(event, 202)
   return sent satisfies ReportSendResult
 })

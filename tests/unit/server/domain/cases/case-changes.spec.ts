@@ -16,7 +16,7 @@ const now = new Date('2026-12-02T13:05:00Z')
 
 describe('planning a change to a case', () => {
   it('appends readings stamped with when and by whom, one timeline event each, and asks to rank again', () => {
-    const plan = planReadings(unit, current, [{ quantity: 'suctionPressure', stage: 'low', value: 15, unit: 'psig' }, { quantity: 'cabinetTemperature', value: -41, unit: 'C' }], 9, now)
+    const plan = planReadings(unit, current, [{ quantity: 'suctionPressure', stage: 'low', value: 15, unit: 'psig' }, { quantity: 'cabinetTemperature', value: -41, unit: 'C' }], 9, now, { atmosphericKpa: 101.325 })
     expect(plan.changes.readings).toEqual([
       { quantity: 'suctionPressure', stage: 'low', value: 15, unit: 'psig', at: now.toISOString(), by: 9 },
       { quantity: 'cabinetTemperature', value: -41, unit: 'C', at: now.toISOString(), by: 9 },
