@@ -20,6 +20,8 @@ export function useCaseWorkspace(caseId: number) {
   const state = ref<SyncState>('saved')
   const message = ref('')
   const queued = computed(() => drafts.queuedFor(caseId))
+  /** A change the server asked to confirm (readings far outside the unit's design envelope): what was sent and what it asks. */
+  const confirmation = ref<{ path: string; body: Record<string, unknown>; label: string; questions: { index: number; message: string }[] } | null>(null)
 
   async function post(path: string, body: Record<string, unknown>, method: 'POST' | 'PUT' = 'POST') {
     return $fetch<CaseDto>(`/api/cases/${caseId}/${path}`, { method, body })
@@ -36,6 +38,7 @@ export function useCaseWorkspace(caseId: number) {
     state.value = 'saving'
     try {
       record.value = await post(path, { ...body, version: record.value?.version }, method)
+      confirmation.value = null
       state.value = 'saved'
       message.value = ''
       return true
@@ -47,6 +50,8 @@ export function useCaseWorkspace(caseId: number) {
         return true
       }
       const statusCode = (e as { statusCode?: number }).statusCode
+      const questions = (e as { data?: { data?: { confirmationNeeded?: { index: number; message: string }[] } } }).data?.data?.confirmationNeeded
+      confirmation.value = statusCode === 422 && questions?.length ? { path, body, label, questions } : null
       state.value = statusCode === 409 ? 'conflict' : 'error'
       message.value = messageOf(e)
       return false
@@ -101,5 +106,5 @@ export function useCaseWorkspace(caseId: number) {
     else if (queued.value.length) void flush()
   })
 
-  return { record, error, status, state, message, queued, online, send, flush, reload }
+  return { record, error, status, state, message, queued, online, confirmation, send, flush, reload }
 }

@@ -52,7 +52,8 @@ test('an admin reads the report e-mail in the outbox and opens the printable rep
   await expect(page.getByRole('heading', { level: 1, name: /Service report/ })).toBeVisible()
   await expect(page.getByRole('heading', { level: 2, name: 'Findings' })).toBeVisible()
   await expect(page.getByRole('link', { name: 'Download PDF' })).toHaveAttribute('href', `/api/cases/${caseId}/report.pdf`)
-  await expect(page.getByRole('button', { name: 'Send to site contacts' })).toBeVisible()
+  await expect(page.getByRole('button', { name: /Send the report to \d+ address/ })).toBeVisible()
+  await expect(page.getByRole('link', { name: 'Preview the PDF' })).toHaveAttribute('href', `/api/cases/${caseId}/report.pdf`)
   await expect(page.getByText('Sent', { exact: true }).first()).toBeVisible()
   await expectNoSeriousA11yIssues(page)
 

@@ -3,11 +3,13 @@
 // weight or by standing pressure. Each step carries the cautions of its own kind, stage and
 // refrigerant only. Pure: no I/O.
 import type {
-  EvacuationInput, HotWorkCheck, HotWorkInput, PressureHoldInput, RechargeInput, RepairStepInput, RepairStepKind, RepairStepResult, StepFigure,
+  EvacuationInput, HotWorkInput, PressureHoldInput, RechargeInput, RepairStepInput, RepairStepKind, RepairStepResult, StepFigure,
 } from '#shared/types/repair-steps'
 import { HOT_WORK_CHECKS } from '#shared/types/repair-steps'
+export { requiredHotWorkChecks, stepCautions } from '#shared/utils/repair-steps'
 import type { UnitStageDto } from '#shared/types/equipment-dto'
-import { chargingCautions, chargingProgress } from '#shared/utils/charging'
+import { chargingProgress } from '#shared/utils/charging'
+import { requiredHotWorkChecks, stepCautions } from '#shared/utils/repair-steps'
 import { formatFigure, formatPressure, formatQuantity, formatDuration } from '#shared/utils/format'
 import type { FieldErrors } from '#shared/utils/input-errors'
 import { findRefrigerant, isDesignation, toCelsius, toKpaAbs, type Designation, type PressureUnit } from '#shared/utils/properties'
@@ -85,35 +87,6 @@ function designationOf(ctx: StepContext, given?: string): Designation | undefine
   return isDesignation(d) ? d : undefined
 }
 
-/** The cautions of one kind of step on one stage and refrigerant; never another stage's. */
-export function stepCautions(kind: RepairStepKind, refrigerant: string | undefined): string[] {
-  const info = refrigerant && isDesignation(refrigerant) ? findRefrigerant(refrigerant) : undefined
-  const flammable = !!info?.flammable
-  switch (kind) {
-    case 'pressure-hold':
-      return [
-        'Pressurise with dry nitrogen from a cylinder through a regulator and a relief valve set at or below the test pressure; never oxygen, compressed air or a flame.',
-        'Stay below the stage\'s design pressure and below the rating of every gauge, hose and component under test; isolate what is rated lower.',
-        'Release the nitrogen to a ventilated place when done: in a small room it displaces the air you breathe.',
-      ]
-    case 'evacuation':
-      return [
-        'Never run a compressor under deep vacuum, and never use a compressor to pull the vacuum.',
-        ...(flammable ? [`The stage held ${refrigerant}, which is flammable: vent the vacuum pump's exhaust outdoors and use a pump rated for flammable refrigerants.`] : []),
-      ]
-    case 'hot-work':
-      return [
-        ...(flammable
-          ? [`This stage held ${refrigerant}, a flammable refrigerant (safety class ${info!.safetyClass}): recover it, purge the stage with dry nitrogen, check the air for a flammable atmosphere with a detector, and keep checking while you work.`]
-          : []),
-        'Braze with dry nitrogen flowing through the pipe; never braze on a system under pressure or with refrigerant in it.',
-        'Follow the site\'s hot-work permit and local codes; keep an extinguisher at hand and shield or move what can burn.',
-      ]
-    case 'recharge':
-      return info && refrigerant && isDesignation(refrigerant) ? [...chargingCautions(refrigerant), ...info.cautions] : []
-  }
-}
-
 function pressureHold(input: PressureHoldInput, ctx: StepContext): RepairStepResult {
   const errors: FieldErrors = {}
   const atm = ctx.atmosphericKpa
@@ -185,12 +158,6 @@ function evacuation(input: EvacuationInput, ctx: StepContext): RepairStepResult 
       ? `Reached ${micron(reached)}, not the target of ${micron(target)}: go on evacuating before the decay test.`
       : `Rose to ${micron(after)} within ${formatDuration(input.decayMinutes)} (allowed ${micron(limit)}): find the leak or the moisture before charging.`
   return { verdict, summary, figures, warnings, cautions: stepCautions('evacuation', ctx.stage.refrigerant) }
-}
-
-/** Checks required before brazing on a stage: all of them where it held a flammable refrigerant. */
-export function requiredHotWorkChecks(refrigerant: string): HotWorkCheck[] {
-  const flammable = isDesignation(refrigerant) && !!findRefrigerant(refrigerant)?.flammable
-  return flammable ? [...HOT_WORK_CHECKS] : ['recovered', 'nitrogenFlowWhileBrazing', 'extinguisher']
 }
 
 function hotWork(input: HotWorkInput, ctx: StepContext): RepairStepResult {
