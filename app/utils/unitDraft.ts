@@ -7,7 +7,7 @@ import type { EquipmentClass } from '#shared/types/equipment'
 import type { UnitDto } from '#shared/types/equipment-dto'
 import { decimalText, decimalOrNull } from './decimal'
 
-export const STAGE_NUMBER_FIELDS = ['chargeG', 'volumeL', 'referenceStandingPressureKpa', 'referenceAmbientC', 'ratedCurrentA'] as const
+export const STAGE_NUMBER_FIELDS = ['chargeG', 'volumeL', 'referenceStandingPressureKpa', 'referenceAmbientC', 'ratedCurrentA', 'designPressureKpa'] as const
 export type StageNumberField = (typeof STAGE_NUMBER_FIELDS)[number]
 export type StageDraft = { refrigerant: string } & Record<StageNumberField, string>
 
@@ -25,7 +25,7 @@ export interface UnitDraft {
   stages: Record<Stage, StageDraft>
 }
 
-const blankStage = (refrigerant = ''): StageDraft => ({ refrigerant, chargeG: '', volumeL: '', referenceStandingPressureKpa: '', referenceAmbientC: '', ratedCurrentA: '' })
+const blankStage = (refrigerant = ''): StageDraft => ({ refrigerant, chargeG: '', volumeL: '', referenceStandingPressureKpa: '', referenceAmbientC: '', ratedCurrentA: '', designPressureKpa: '' })
 
 /** An empty form, optionally at a preselected site. */
 export function emptyUnitDraft(siteId = ''): UnitDraft {

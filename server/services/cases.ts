@@ -165,7 +165,7 @@ export function correctReading(actor: Actor, input: ReadingCorrectionInput & { c
   return changeCase(actor, caseId, version, now, (current, unit) => planReadingCorrection(unit, current, correction, actor.id, now, atmosphereOf(unit)))
 }
 
-/** `POST /api/cases/{id}/test-results/{index}/correction`: strikes out or corrects a test outcome with a reason, and re-ranks. */
+/** `POST /api/cases/{id}/outcomes/{index}/correction`: strikes out or corrects a test outcome with a reason, and re-ranks. */
 export function correctOutcome(actor: Actor, input: OutcomeCorrectionInput & { caseId: number; index: number }, now: Date): Promise<CaseDto> {
   const { caseId, version, ...correction } = input
   return changeCase(actor, caseId, version, now, (current) => planOutcomeCorrection(current, correction, actor.id, now))

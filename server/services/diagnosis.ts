@@ -68,9 +68,9 @@ async function learnedCounts(stamps: CacheStamps, group: PriorGroup): Promise<Le
   const key = `${stamps.organisationId}|${stamps.learnedGeneration}|${stamps.equipmentGeneration}|${JSON.stringify(group)}`
   const { counts } = await learnedPriors.load(key, async () => {
     const rows = await confirmedCauseCounts(stamps.organisationId, group)
-    // The case record does not yet say how each cause was confirmed; closing a case requires the work
-    // done, so confirmations at close count as confirmed by repair until that is recorded.
-    return { counts: rows.map((r) => ({ cause: r.cause as Cause, stage: (r.stage ?? undefined) as Stage | undefined, count: r.count, definitive: true })) }
+    // Closing records how each cause was settled (a test, the repair, or judgement); only judgement is
+    // not definitive. Older confirmations, closed with the work done, count as settled by the repair.
+    return { counts: rows.map((r) => ({ cause: r.cause as Cause, stage: (r.stage ?? undefined) as Stage | undefined, count: r.count, definitive: r.definitive })) }
   })
   return counts
 }

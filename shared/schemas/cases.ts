@@ -54,7 +54,7 @@ export const ReadingCorrectionSchema = z
   })
 export type ReadingCorrectionInput = z.infer<typeof ReadingCorrectionSchema>
 
-/** `POST /api/cases/{id}/test-results/{index}/correction`: strike a test outcome out, or correct it, with a reason. */
+/** `POST /api/cases/{id}/outcomes/{index}/correction`: strike a test outcome out, or correct it, with a reason. */
 export const OutcomeCorrectionSchema = z
   .object({
     action: z.enum(['strike', 'correct'], { error: 'action must be "strike" or "correct"' }),

@@ -114,6 +114,7 @@ export const UnitStageInputSchema = z
     referenceStandingPressureKpa: measured('Reference standing pressure', 'kPa absolute', 1, 15_000).optional(),
     referenceAmbientC: measured('Reference ambient', '°C', -40, 60).optional(),
     ratedCurrentA: measured('Rated current', 'A', 0.1, 500).optional(),
+    designPressureKpa: measured('Design pressure', 'kPa absolute', 100, 30_000).optional(),
   })
   .strict()
   .superRefine((s, ctx) => {

@@ -9,6 +9,8 @@ export interface UnitStageDto {
   referenceStandingPressureKpa: number | null
   referenceAmbientC: number | null
   ratedCurrentA: number | null
+  /** Design (maximum allowable) pressure of the stage from its nameplate, kPa absolute. */
+  designPressureKpa: number | null
 }
 
 /** A unit as `GET /api/units` returns it; `customer` and `site` are names (contract). */

@@ -14,6 +14,7 @@ export class UnitStage extends Model<InferAttributes<UnitStage>, InferCreationAt
   declare referenceStandingPressureKpa: number | null
   declare referenceAmbientC: number | null
   declare ratedCurrentA: number | null
+  declare designPressureKpa: CreationOptional<number | null>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 
@@ -28,6 +29,7 @@ export class UnitStage extends Model<InferAttributes<UnitStage>, InferCreationAt
         referenceStandingPressureKpa: { type: DataTypes.DOUBLE, allowNull: true },
         referenceAmbientC: { type: DataTypes.DOUBLE, allowNull: true },
         ratedCurrentA: { type: DataTypes.DOUBLE, allowNull: true },
+        designPressureKpa: { type: DataTypes.DOUBLE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

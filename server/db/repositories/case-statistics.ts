@@ -6,11 +6,13 @@ import { ServiceCase } from '../models'
 /** How often each cause was confirmed on the organisation's closed cases of units of one class (or kind). */
 export async function confirmedCauseCounts(organisationId: number, group: { equipmentClass: string } | { kind: string }) {
   const [column, value] = 'equipmentClass' in group ? ['equipment_class', group.equipmentClass] : ['kind', group.kind]
-  return ServiceCase.sequelize!.query<{ cause: string; stage: string | null; count: number }>(
-    `SELECT elem->>'cause' AS cause, elem->>'stage' AS stage, count(*)::int AS count
+  // A cause confirmed on judgement alone is not definitive; one settled by a test or by the repair
+  // that cured it is, as are confirmations recorded before the basis was asked.
+  return ServiceCase.sequelize!.query<{ cause: string; stage: string | null; count: number; definitive: boolean }>(
+    `SELECT elem->>'cause' AS cause, elem->>'stage' AS stage, count(*)::int AS count, coalesce(elem->>'basis', '') <> 'judgement' AS definitive
        FROM cases c JOIN units u ON u.id = c.unit_id, jsonb_array_elements(c.confirmed_causes) elem
       WHERE c.organisation_id = :organisationId AND c.status = 'closed' AND u.${column} = :value
-      GROUP BY 1, 2`,
+      GROUP BY 1, 2, 4`,
     { replacements: { organisationId, value }, type: QueryTypes.SELECT },
   )
 }

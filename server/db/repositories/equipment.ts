@@ -36,6 +36,7 @@ function toDto(unit: UnitWithParts): UnitDto {
         referenceStandingPressureKpa: s.referenceStandingPressureKpa,
         referenceAmbientC: s.referenceAmbientC,
         ratedCurrentA: s.ratedCurrentA,
+        designPressureKpa: s.designPressureKpa ?? null,
       })),
   }
 }
@@ -140,6 +141,7 @@ function stageRows(unitId: number, stages: UnitStageInput[]) {
     unitId, stage: s.stage, refrigerant: s.refrigerant, chargeG: s.chargeG ?? null, volumeL: s.volumeL ?? null,
     referenceStandingPressureKpa: s.referenceStandingPressureKpa ?? null, referenceAmbientC: s.referenceAmbientC ?? null,
     ratedCurrentA: s.ratedCurrentA ?? null,
+    designPressureKpa: s.designPressureKpa ?? null,
   }))
 }
 

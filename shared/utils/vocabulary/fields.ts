@@ -41,6 +41,7 @@ export const FIELD_WORDS: Readonly<Record<string, FieldWord>> = {
   referenceStandingPressureKpa: { label: 'reference standing pressure' },
   referenceAmbientC: { label: 'ambient at the reference pressure' },
   ratedCurrentA: { label: 'rated current' },
+  designPressureKpa: { label: 'design pressure' },
   designCabinetC: { label: 'Design cabinet temperature' },
   designCascadeHxC: { label: 'Design cascade heat exchanger temperature' },
   siteId: { label: 'Site' },

@@ -89,7 +89,7 @@ describe('corrections', () => {
   it('corrects and strikes out a test outcome', async () => {
     const recorded = await tech.post(`/api/cases/${caseId}/test-results`, { test: 'standing-pressure-check', stage: 'low', outcome: 'as-expected' })
     const index = recorded.body.testResults.length - 1
-    const res = await tech.post(`/api/cases/${caseId}/test-results/${index}/correction`, { action: 'correct', reason: 'Compared with the wrong stage', outcome: 'low' })
+    const res = await tech.post(`/api/cases/${caseId}/outcomes/${index}/correction`, { action: 'correct', reason: 'Compared with the wrong stage', outcome: 'low' })
     expect({ status: res.status, index, message: res.status === 200 ? '' : res.body?.message }).toMatchObject({ status: 200 })
     expect(res.body.testResults[index]).toMatchObject({ outcome: 'low', corrected: { from: { outcome: 'as-expected' } } })
     expect(res.body.events.some((e: { type: string }) => e.type === 'outcome-corrected')).toBe(true)
