@@ -1,17 +1,12 @@
 import type { Cause, RankResponse, Reading, ReadingUnit, Stage, Symptom, TestResult } from './diagnosis'
-import type { RepairStepRecord } from './repair-steps'
+import type { RepairStepRecord, Revision } from './repair-steps'
 import type { UnitDto } from './equipment-dto'
 import type { UploadDto } from './uploads'
 
 export const CASE_STATUSES = ['open', 'closed'] as const
 export type CaseStatus = (typeof CASE_STATUSES)[number]
 
-/** Who struck out or corrected an entry, when and why. The timeline keeps the change as its own event. */
-export interface Revision {
-  at: string
-  by: number | null
-  reason: string
-}
+export type { Revision } from './repair-steps'
 
 /** A reading as the case stores it: the entered value and unit, when and by whom. */
 export interface CaseReading extends Reading {

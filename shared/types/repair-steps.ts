@@ -2,9 +2,15 @@
 // finding the fault, with the figures that show it was done right. Inputs are as entered (pressures
 // with their measurement unit); results are computed by server/domain/cases/repair-steps.ts when
 // the step is recorded and stored beside them, so the report shows what was judged at the time.
-import type { Revision } from './cases'
 import type { PressureReadingUnit, Stage, TemperatureReadingUnit } from './diagnosis'
 import type { VacuumUnit } from '#shared/utils/properties'
+
+/** Who struck out or corrected an entry, when and why. The timeline keeps the change as its own event. */
+export interface Revision {
+  at: string
+  by: number | null
+  reason: string
+}
 
 export const REPAIR_STEP_KINDS = ['pressure-hold', 'evacuation', 'hot-work', 'recharge'] as const
 export type RepairStepKind = (typeof REPAIR_STEP_KINDS)[number]

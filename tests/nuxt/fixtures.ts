@@ -7,8 +7,8 @@ export const cascadeUnit: UnitDto = {
   customer: 'Harbour Cryo', customerId: 2, site: 'Quay lab', siteId: 3, siteAltitudeM: 0,
   design: { cabinetC: -86, cascadeHxC: -35 },
   stages: [
-    { stage: 'high', refrigerant: 'R290', chargeG: 150, volumeL: 6, referenceStandingPressureKpa: null, referenceAmbientC: null, ratedCurrentA: 3.1 },
-    { stage: 'low', refrigerant: 'R170', chargeG: 90, volumeL: 7.5, referenceStandingPressureKpa: null, referenceAmbientC: null, ratedCurrentA: 2.4 },
+    { stage: 'high', refrigerant: 'R290', chargeG: 150, volumeL: 6, referenceStandingPressureKpa: null, referenceAmbientC: null, ratedCurrentA: 3.1, designPressureKpa: null },
+    { stage: 'low', refrigerant: 'R170', chargeG: 90, volumeL: 7.5, referenceStandingPressureKpa: null, referenceAmbientC: null, ratedCurrentA: 2.4, designPressureKpa: null },
   ],
 }
 

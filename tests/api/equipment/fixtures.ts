@@ -28,7 +28,7 @@ export function cascadeBody(siteId: number, overrides: Record<string, unknown> =
     designCascadeHxC: -35,
     stages: [
       { stage: 'high', refrigerant: 'R290', chargeG: 150, ratedCurrentA: 5.2 },
-      { stage: 'low', refrigerant: 'R170', chargeG: 90, volumeL: 7.5, referenceStandingPressureKpa: 700, referenceAmbientC: 20, ratedCurrentA: 3.4 },
+      { stage: 'low', refrigerant: 'R170', chargeG: 90, volumeL: 7.5, referenceStandingPressureKpa: 700, referenceAmbientC: 20, ratedCurrentA: 3.4, designPressureKpa: 2800 },
     ],
     ...overrides,
   }

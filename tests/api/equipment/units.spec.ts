@@ -13,8 +13,8 @@ describe('units: create and edit', () => {
     expect(cascade.status).toBe(201)
     expect(cascade.body).toMatchObject({ id: expect.any(Number), name: body.name, kind: 'cascade', customer, siteId, design: { cabinetC: -86, cascadeHxC: -35 } })
     expect(cascade.body.stages).toEqual([
-      { stage: 'high', refrigerant: 'R290', chargeG: 150, volumeL: null, referenceStandingPressureKpa: null, referenceAmbientC: null, ratedCurrentA: 5.2 },
-      { stage: 'low', refrigerant: 'R170', chargeG: 90, volumeL: 7.5, referenceStandingPressureKpa: 700, referenceAmbientC: 20, ratedCurrentA: 3.4 },
+      { stage: 'high', refrigerant: 'R290', chargeG: 150, volumeL: null, referenceStandingPressureKpa: null, referenceAmbientC: null, ratedCurrentA: 5.2, designPressureKpa: null },
+      { stage: 'low', refrigerant: 'R170', chargeG: 90, volumeL: 7.5, referenceStandingPressureKpa: 700, referenceAmbientC: 20, ratedCurrentA: 3.4, designPressureKpa: 2800 },
     ])
 
     const single = await tech.post('/api/units', singleBody(siteId, { stages: [{ stage: 'single', refrigerant: 'r-600a', chargeG: 60 }] }))

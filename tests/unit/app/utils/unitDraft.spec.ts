@@ -7,8 +7,8 @@ const unit: UnitDto = {
   id: 3, name: 'Freezer Z-3', kind: 'cascade', equipmentClass: 'ult-freezer', model: 'Icebox 9', serial: 'IB9-3', location: '',
   customer: 'C', customerId: 1, site: 'S', siteId: 2, siteAltitudeM: 0, design: { cabinetC: -80, cascadeHxC: null },
   stages: [
-    { stage: 'high', refrigerant: 'R404A', chargeG: 520, volumeL: null, referenceStandingPressureKpa: null, referenceAmbientC: null, ratedCurrentA: 6.2 },
-    { stage: 'low', refrigerant: 'R170', chargeG: 210, volumeL: 9.5, referenceStandingPressureKpa: 790, referenceAmbientC: 21, ratedCurrentA: 4.1 },
+    { stage: 'high', refrigerant: 'R404A', chargeG: 520, volumeL: null, referenceStandingPressureKpa: null, referenceAmbientC: null, ratedCurrentA: 6.2, designPressureKpa: null },
+    { stage: 'low', refrigerant: 'R170', chargeG: 210, volumeL: 9.5, referenceStandingPressureKpa: 790, referenceAmbientC: 21, ratedCurrentA: 4.1, designPressureKpa: 2800 },
   ],
 }
 
