@@ -138,7 +138,7 @@ test('a phone job on a cascade low stage: leak at a line-tap valve, brazing, nit
   await expect(page.getByRole('checkbox', { name: /Petra Voss/ })).toBeChecked()
   await page.getByLabel('Other addresses (optional)').fill('lab.lead@example.test')
   await page.getByRole('button', { name: 'Send the report to 2 addresses' }).click()
-  await expect(page.getByRole('status')).toContainText('Queued 2 e-mails')
+  await expect(page.getByRole('status').filter({ hasText: 'Queued 2 e-mails' })).toBeVisible()
   await expect.poll(() => outboxMessages().filter((m) => m.includes(`(case ${caseId})`) && m.includes('application/pdf')).length, { timeout: 30_000 }).toBe(2)
 
   // The PDF's pages rendered to images in the browser with pdfjs-dist.
