@@ -6,15 +6,19 @@ import {
   findCustomer, findCustomers, findSite, findSites, insertContact, insertCustomer, insertSite, removeContact, saveContact, saveCustomer, saveSite,
 } from '#server/db/repositories/customers'
 import { findUnit, findUnitPage, findUnits, insertUnit, saveUnit } from '#server/db/repositories/equipment'
+import { insertRefill, nameplateHistory } from '#server/db/repositories/nameplate'
+import { readCaseState } from '#server/db/repositories/case-records'
+import { appendEvents } from '#server/db/repositories/case-writes'
+import { planRefill } from '#server/domain/equipment/nameplate'
 import { unitUploads } from '#server/db/repositories/uploads'
 import { mergeUnitPatch } from '#server/domain/equipment/unit-patch'
 import { refrigerantSafety } from '#server/domain/equipment/refrigerant-safety'
-import { NotFoundError } from '#server/domain/errors'
+import { ConflictError, FieldNotFoundError, NotFoundError } from '#server/domain/errors'
 import {
   UnitInputSchema, type ContactInput, type ContactPatch, type CustomerInput, type CustomerListQuery, type CustomerPatch, type SiteInput, type SitePatch,
-  type UnitInput, type UnitPatch, type UnitRegisterQuery,
+  type NameplateRefillInput, type UnitInput, type UnitPatch, type UnitRegisterQuery,
 } from '#shared/schemas/equipment'
-import type { ContactDto, CustomerDto, Page, SiteDto, UnitDto } from '#shared/types/equipment-dto'
+import type { ContactDto, CustomerDto, NameplateRecordDto, Page, SiteDto, UnitDto } from '#shared/types/equipment-dto'
 import type { UnitOverviewDto } from '#shared/types/unit-overview'
 import type { UploadDto } from '#shared/types/uploads'
 import type { Actor } from './types'
@@ -69,6 +73,42 @@ export async function unitOverview(actor: Actor, input: { unitId: number }): Pro
     unit, refrigerants: refrigerantSafety(unit.stages.map((s) => s.refrigerant)), openCases: open.items, pastCases: past.items, pastCaseTotal: past.total,
     transactions, uploads, nameplate: uploads.find((u) => u.purpose === 'nameplate') ?? null,
   }
+}
+
+/** `GET /api/units/{id}/nameplate`: the unit's nameplate history, newest first. */
+export async function unitNameplateHistory(actor: Actor, input: { unitId: number }): Promise<NameplateRecordDto[]> {
+  await getUnit(actor, input)
+  return nameplateHistory(actor.organisationId, input.unitId)
+}
+
+/**
+ * `POST /api/units/{id}/nameplate`: a stage refilled with another refrigerant (or another charge).
+ * The stage takes the new fill and a nameplate record keeps what it held before, when, by whom and
+ * on which basis; when the refill happened in an open case of this unit, its timeline records it.
+ */
+export async function refillStage(actor: Actor, input: NameplateRefillInput & { unitId: number }, now: Date): Promise<{ unit: UnitDto; history: NameplateRecordDto[]; warnings: string[] }> {
+  const unit = await getUnit(actor, input)
+  const plan = planRefill(unit, input)
+  await useDb().transaction(async (transaction) => {
+    if (input.caseId !== undefined) {
+      const c = await readCaseState(actor.organisationId, input.caseId, transaction)
+      if (!c || c.unitId !== unit.id) throw new FieldNotFoundError('No case of this unit has that number', 'caseId')
+      if (c.status === 'closed') throw new ConflictError('That case is closed; record the refill on the unit alone, or in an open case.')
+    }
+    await insertRefill({
+      organisationId: actor.organisationId, unitId: unit.id, stage: plan.stage, refrigerant: plan.refrigerant, chargeG: plan.chargeG,
+      previousRefrigerant: plan.previousRefrigerant, previousChargeG: plan.previousChargeG, basis: plan.basis, note: plan.note,
+      caseId: input.caseId ?? null, byUserId: actor.id, at: now,
+    }, transaction)
+    if (input.caseId !== undefined) {
+      await appendEvents(input.caseId, actor.id, [{
+        type: 'nameplate-changed',
+        payload: { stage: plan.stage, refrigerant: plan.refrigerant, chargeG: plan.chargeG, previousRefrigerant: plan.previousRefrigerant, previousChargeG: plan.previousChargeG, basis: plan.basis, warnings: plan.warnings },
+      }], transaction, now)
+    }
+  })
+  const [saved, history] = await Promise.all([getUnit(actor, input), nameplateHistory(actor.organisationId, unit.id)])
+  return { unit: saved, history, warnings: plan.warnings }
 }
 
 /** `GET /api/units/{id}/uploads`: files filed against the unit itself, newest first. */

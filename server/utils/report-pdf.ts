@@ -50,7 +50,8 @@ function ensureRoom(doc: Doc, height: number) {
 }
 
 function sectionTitle(doc: Doc, title: string) {
-  ensureRoom(doc, 40)
+  // Keep a title with at least its first rows.
+  ensureRoom(doc, 90)
   doc.moveDown(0.8).font('bold').fontSize(12).fillColor(INK).text(title, MARGIN)
   const y = doc.y + 2
   doc.moveTo(MARGIN, y).lineTo(doc.page.width - MARGIN, y).lineWidth(0.7).strokeColor(RULE).stroke()
@@ -81,7 +82,7 @@ function listSection(doc: Doc, section: ReportSection) {
 }
 
 const TABLE_COLUMNS = [
-  { title: 'Reading', width: 0.27 },
+  { title: 'What', width: 0.27 },
   { title: 'Value', width: 0.15 },
   { title: 'Meaning and remarks', width: 0.32 },
   { title: 'Time', width: 0.14 },
@@ -93,12 +94,13 @@ function tableSection(doc: Doc, section: ReportSection) {
   const width = doc.page.width - 2 * MARGIN
   const widths = TABLE_COLUMNS.map((c) => c.width * width)
   const xs = widths.map((_, i) => MARGIN + widths.slice(0, i).reduce((a, b) => a + b, 0))
+  const firstColumn = section.title.startsWith('Readings') ? 'Reading' : 'Test'
   const header = () => {
     ensureRoom(doc, 30)
     const top = doc.y
     doc.rect(MARGIN, top - 2, width, 16).fill('#f1f5f9')
     doc.font('bold').fontSize(8.5).fillColor(MUTED)
-    TABLE_COLUMNS.forEach((c, i) => doc.text(c.title, xs[i]! + 3, top + 2, { width: widths[i]! - 6, lineBreak: false }))
+    TABLE_COLUMNS.forEach((c, i) => doc.text(i === 0 ? firstColumn : c.title, xs[i]! + 3, top + 2, { width: widths[i]! - 6, lineBreak: false }))
     doc.y = top + 17
   }
   header()

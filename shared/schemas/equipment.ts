@@ -10,6 +10,7 @@
 import { z } from 'zod'
 import { DESIGNATIONS, findRefrigerant, isDesignation } from '#shared/utils/properties'
 import { CUSTOMER_SORTS, EQUIPMENT_CLASSES, SORT_DIRECTIONS, UNIT_SORTS } from '#shared/types/equipment'
+import { NAMEPLATE_BASES } from '#shared/types/equipment-dto'
 import { UNIT_KINDS, type Stage, type UnitKind } from '#shared/types/diagnosis'
 import { STAGES_OF_KIND, stageSchema, unitKindSchema, wordEnum } from './diagnosis'
 
@@ -197,3 +198,17 @@ export const UnitRegisterQuerySchema = z
   })
   .strict()
 export type UnitRegisterQuery = z.infer<typeof UnitRegisterQuerySchema>
+
+/** `POST /api/units/{id}/nameplate`: a stage refilled with another refrigerant or charge, kept as a nameplate record. */
+export const NameplateRefillSchema = z
+  .object({
+    stage: stageSchema,
+    refrigerant,
+    chargeG: measured('Charge', 'g', 1, 500_000).optional(),
+    basis: z.enum(NAMEPLATE_BASES, { error: `basis must be one of: ${NAMEPLATE_BASES.join(', ')}` }),
+    note: z.string().trim().max(2000, 'Keep it under 2000 characters').optional(),
+    /** The case in which the stage was refilled; the case's timeline records it too. */
+    caseId: z.number().int().positive().optional(),
+  })
+  .strict()
+export type NameplateRefillInput = z.infer<typeof NameplateRefillSchema>

@@ -6,7 +6,6 @@ import type { UploadDto } from './uploads'
 export const CASE_STATUSES = ['open', 'closed'] as const
 export type CaseStatus = (typeof CASE_STATUSES)[number]
 
-export type { Revision } from './repair-steps'
 
 /** A reading as the case stores it: the entered value and unit, when and by whom. */
 export interface CaseReading extends Reading {
@@ -30,7 +29,7 @@ export interface CaseTestResult extends TestResult {
 export const CASE_EVENT_TYPES = [
   'case-opened', 'symptoms-set', 'reading-entered', 'test-proposed', 'outcome-recorded', 'note', 'photo',
   'ranking-snapshot', 'case-closed', 'addendum', 'report-queued', 'report-sent', 'report-failed',
-  'reading-struck', 'reading-corrected', 'outcome-struck', 'outcome-corrected', 'step-recorded', 'step-struck', 'report-photos-set',
+  'reading-struck', 'reading-corrected', 'outcome-struck', 'outcome-corrected', 'step-recorded', 'step-struck', 'report-photos-set', 'nameplate-changed',
 ] as const
 export type CaseEventType = (typeof CASE_EVENT_TYPES)[number]
 

@@ -31,6 +31,25 @@ export interface UnitDto {
   stages: UnitStageDto[]
 }
 
+/** How a new fill of a stage was planned: one of the substitution bases, or as found on site. */
+export const NAMEPLATE_BASES = ['standing-pressure', 'mass', 'liquid-volume', 'as-found'] as const
+export type NameplateBasis = (typeof NAMEPLATE_BASES)[number]
+
+/** One change of a stage's refrigerant or charge: before and after, when, by whom, why, in which case. */
+export interface NameplateRecordDto {
+  id: number
+  stage: StageName
+  refrigerant: string
+  chargeG: number | null
+  previousRefrigerant: string
+  previousChargeG: number | null
+  basis: NameplateBasis
+  note: string
+  caseId: number | null
+  by: string | null
+  at: string
+}
+
 /** One page of a list; `total` counts every match, not just this page. */
 export interface Page<T> {
   items: T[]

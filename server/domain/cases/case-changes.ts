@@ -1,7 +1,8 @@
 // What each change to a case may do, as plain functions: current state and input in, the fields to
 // save and the timeline events to append out. The case service loads the state, calls one planner,
 // re-ranks when the plan asks, and commits. No I/O here.
-import type { CaseClosure, CaseReading, CaseTestResult, RefrigerantTransactionDto, Revision } from '#shared/types/cases'
+import type { CaseClosure, CaseReading, CaseTestResult, RefrigerantTransactionDto } from '#shared/types/cases'
+import type { Revision } from '#shared/types/repair-steps'
 import type { Cause, RankResponse, Reading, ReadingUnit, Stage, Symptom, TestSlug } from '#shared/types/diagnosis'
 import type { UnitDto } from '#shared/types/equipment-dto'
 import type { RepairStepInput, RepairStepRecord } from '#shared/types/repair-steps'

@@ -121,7 +121,9 @@ function pressureHold(input: PressureHoldInput, ctx: StepContext): RepairStepRes
     { label: 'Drop after temperature correction', value: `${delta(correctedDropKpa)} (allowed ${delta(tolerance)})` },
   ]
   const summary = pass
-    ? `Held: ${delta(Math.max(correctedDropKpa, 0))} drop after correcting for the temperature change, within the ${delta(tolerance)} allowed.`
+    ? correctedDropKpa <= 0
+      ? `Held: no loss once the temperature change is taken out (${delta(correctedDropKpa)}, allowed ${delta(tolerance)}).`
+      : `Held: ${delta(correctedDropKpa)} drop after correcting for the temperature change, within the ${delta(tolerance)} allowed.`
     : `Did not hold: ${delta(correctedDropKpa)} lost after correcting for the temperature change (allowed ${delta(tolerance)}). Search for the leak before going on.`
   return { verdict: pass ? 'pass' : 'fail', summary, figures, warnings, cautions: stepCautions('pressure-hold', ctx.stage.refrigerant) }
 }

@@ -140,7 +140,7 @@ function stepRows(c: CaseDto, setting: ReportSetting, names: Map<number, string>
       ...(step.struck ? { struck: true } : {}),
     }
     if (step.struck) return [head]
-    const figures = step.result.figures.map((f): ReportRow => ({ label: f.label, value: f.value, figure: /\d/.test(f.value), detail: true }))
+    const figures = step.result.figures.map((f): ReportRow => ({ label: f.label, value: f.value, figure: /^[−-]?\d/.test(f.value), detail: true }))
     const warnings = step.result.warnings.map((w): ReportRow => ({ label: 'Note', value: w, detail: true }))
     return [head, ...figures, ...warnings]
   })

@@ -17,3 +17,11 @@ export const SUBSTITUTION_BASIS_WORDS: Readonly<Record<SubstitutionBasis, string
   mass: 'Same mass',
   'liquid-volume': 'Same liquid volume',
 }
+
+/** How a new fill of a stage was planned, as the nameplate history says it. */
+export const NAMEPLATE_BASIS_WORDS: Readonly<Record<'standing-pressure' | 'mass' | 'liquid-volume' | 'as-found', string>> = {
+  'standing-pressure': 'Planned for the same standing pressure',
+  mass: 'Planned for the same mass',
+  'liquid-volume': 'Planned for the same liquid volume',
+  'as-found': 'Found on site (not planned here)',
+}

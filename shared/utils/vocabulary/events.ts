@@ -37,6 +37,7 @@ export const EVENT_WORDS: Readonly<Record<CaseEventType, WordLabel>> = {
   'step-recorded': { short: 'Step', long: 'Repair step recorded' },
   'step-struck': { short: 'Struck out', long: 'Repair step struck out' },
   'report-photos-set': { short: 'Report photos', long: 'Photos chosen for the report' },
+  'nameplate-changed': { short: 'Refilled', long: 'Stage refilled: nameplate record changed' },
 }
 
 /** "Case opened". */
@@ -82,6 +83,8 @@ export function eventDetail(event: Pick<CaseEventDto, 'type'> & Payload, titles:
       return `${repairStepLabel(p.kind as RepairStepKind)}${onStage(p.stage)}: ${STEP_VERDICT_WORDS[p.verdict as StepVerdict] ?? ''}. ${str(p.summary)}`
     case 'step-struck':
       return `${repairStepLabel(p.kind as RepairStepKind)}${onStage(p.stage)} struck out (${str(p.reason)})`
+    case 'nameplate-changed':
+      return `${stageLabel(str(p.stage) as Stage)}: ${str(p.previousRefrigerant)} replaced by ${str(p.refrigerant)}${typeof p.chargeG === 'number' ? `, ${p.chargeG} g` : ''}`
     case 'report-photos-set':
       return `${((p.uploadIds as number[] | undefined) ?? []).length} photo(s) in the report`
     case 'test-proposed':

@@ -24,7 +24,7 @@ export { EVENT_WORDS, causeOnStage, eventDetail, eventLabel } from './events'
 export { FIELD_WORDS, fieldMessage, fieldName } from './fields'
 export { inPlainWords, labelOfApiWord } from './text'
 export { NO_TITLES, type KnowledgeBaseTitles } from './titles'
-export { STANDING_PHASE_WORDS, SUBSTITUTION_BASIS_WORDS } from './charging'
+export { NAMEPLATE_BASIS_WORDS, STANDING_PHASE_WORDS, SUBSTITUTION_BASIS_WORDS } from './charging'
 export {
   ADDITION_PURPOSE_WORDS, CHECK_KIND_WORDS, CYLINDER_PURPOSE_WORDS, DUTY_KIND_WORDS, additionPurposeLabel, applianceTypeLabel, checkKindLabel,
   cylinderPurposeLabel, dutyKindLabel,
