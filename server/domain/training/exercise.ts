@@ -86,7 +86,7 @@ export function exerciseUnit(unit: UnitDto): ExerciseUnit {
 export function rankableUnit(unit: ExerciseUnit): UnitDto {
   return {
     id: 0, name: unit.name, kind: unit.kind, equipmentClass: unit.equipmentClass, model: '', serial: '', location: '', customer: unit.customer, customerId: 0,
-    site: unit.site, siteId: 0, siteAltitudeM: unit.siteAltitudeM, design: { ...unit.design }, stages: unit.stages.map((s) => ({ ...s })),
+    site: unit.site, siteId: 0, siteAltitudeM: unit.siteAltitudeM, design: { ...unit.design }, stages: unit.stages.map((s) => ({ ...s, designPressureKpa: null })),
   }
 }
 
