@@ -1,5 +1,5 @@
 import { expect, request, test, type APIRequestContext } from '@playwright/test'
-import { DEMO_PASSWORD, PHONE, gotoReady, signIn, waitForHydration } from './helpers'
+import { DEMO_PASSWORD, DESKTOP, PHONE, gotoReady, signIn, waitForHydration } from './helpers'
 
 async function api(email: string, baseURL: string): Promise<APIRequestContext> {
   const context = await request.newContext({ baseURL })
@@ -64,4 +64,38 @@ test('a trainee works an exercise on a phone: asks for a reading and a test, nam
   await expect(page.getByTestId('verdict-high')).toContainText('right')
   // Nothing spills sideways on the phone.
   expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width)
+})
+
+test('a trainer makes an exercise from a closed case, assigns it, and replays the case with the answer hidden until the end', async ({ page, baseURL }) => {
+  const tech = await api('tech@rimecase.demo', baseURL!)
+  const units = (await (await tech.get('/api/units')).json()) as { id: number; kind: string; stages: { stage: string; refrigerant: string }[] }[]
+  const unit = units.find((u) => u.kind === 'cascade' && u.stages.some((s) => s.stage === 'low' && s.refrigerant === 'R170'))!
+  const opened = await (await tech.post('/api/cases', { data: { unitId: unit.id, complaint: 'Alarm at -55 °C', symptoms: ['not-cooling'] } })).json()
+  await tech.post(`/api/cases/${opened.id}/readings`, { data: { readings: [{ quantity: 'cabinetTemperature', value: -55, unit: 'C' }] } })
+  await tech.post(`/api/cases/${opened.id}/test-results`, { data: { test: 'standing-pressure-check', stage: 'low', outcome: 'low' } })
+  await tech.post(`/api/cases/${opened.id}/close`, { data: { confirmedCauses: [{ cause: 'refrigerant-leak', stage: 'low' }], workDone: 'Leak repaired.' } })
+
+  await page.setViewportSize(DESKTOP)
+  await signIn(page, 'trainer@rimecase.demo')
+  await gotoReady(page, `/training?case=${opened.id}`)
+  const form = page.getByRole('form', { name: 'Make an exercise' })
+  await expect(form.getByLabel('Closed case')).toHaveValue(String(opened.id))
+  await form.getByLabel('Title').fill(`Replay drill ${opened.id}`)
+  await form.getByLabel(/Cabinet temperature/).check()
+  await form.getByLabel('Mara Quill').check()
+  await form.getByRole('button', { name: 'Make the exercise' }).click()
+  const item = page.getByTestId('exercise').filter({ hasText: `Replay drill ${opened.id}` })
+  await expect(item).toContainText('assigned to Mara Quill')
+
+  await item.getByRole('link', { name: 'Replay the case' }).click()
+  await page.waitForURL(`**/cases/${opened.id}/replay`)
+  await waitForHydration(page)
+  await expect(page.getByRole('heading', { name: /Step 1 of \d+/ })).toBeVisible()
+  const total = Number((await page.getByRole('heading', { name: /Step 1 of/ }).textContent())!.match(/of (\d+)/)![1])
+  expect(total).toBe(5) // opened, symptoms, reading, outcome, closed
+  await expect(page.getByRole('heading', { name: 'Confirmed at closing' })).toHaveCount(0)
+  for (let i = 1; i < total; i++) await page.getByRole('button', { name: 'Next' }).click()
+  await expect(page.getByRole('heading', { name: `Step ${total} of ${total}` })).toBeVisible()
+  await expect(page.getByRole('heading', { name: 'Confirmed at closing' })).toBeVisible()
+  await expect(page.getByRole('img', { name: /Probability of the leading causes/ }).or(page.locator('canvas[aria-label^="Probability"]'))).toHaveCount(1)
 })
