@@ -98,4 +98,9 @@ test('a trainer makes an exercise from a closed case, assigns it, and replays th
   await expect(page.getByRole('heading', { name: `Step ${total} of ${total}` })).toBeVisible()
   await expect(page.getByRole('heading', { name: 'Confirmed at closing' })).toBeVisible()
   await expect(page.getByRole('img', { name: /Probability of the leading causes/ }).or(page.locator('canvas[aria-label^="Probability"]'))).toHaveCount(1)
+
+  // The trainer's home lists the exercise with its assignee, and the recent attempts.
+  await gotoReady(page, '/')
+  await expect(page.getByRole('link', { name: `Replay drill ${opened.id}` })).toBeVisible()
+  await expect(page.getByRole('heading', { name: 'Recent attempts' })).toBeVisible()
 })
