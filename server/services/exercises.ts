@@ -63,7 +63,8 @@ export async function createExercise(actor: Actor, input: NewExerciseInput, now:
     knowledgeBaseVersionId: kb.version.id,
   }, start)
   checkStart(material, start)
-  const id = await insertExercise(actor.organisationId, { caseId: found.id, title: input.title, start, material, createdBy: actor.id }, now)
+  // A title is free text too: a trainer may well name the customer in it.
+  const id = await insertExercise(actor.organisationId, { caseId: found.id, title: scrubText(input.title, secrets), start, material, createdBy: actor.id }, now)
   if (input.assignees) await assign(actor, id, input.assignees, now)
   return { id }
 }
@@ -83,7 +84,8 @@ export async function changeExercise(actor: Actor, input: UpdateExerciseInput & 
     const { engine: _old, ...rest } = x.material
     material = await withEnginePath(actor, rest, input.start)
   }
-  await updateExercise(actor.organisationId, x.id, { title: input.title, start: input.start, material })
+  const title = input.title === undefined ? undefined : scrubText(input.title, await caseSecrets(actor.organisationId, x.caseId))
+  await updateExercise(actor.organisationId, x.id, { title, start: input.start, material })
   return getExercise(actor, { exerciseId: x.id })
 }
 
