@@ -1,5 +1,6 @@
 // HTTP and browser benchmarks against a running Rimecase (RIMECASE_BENCH_BASE_URL), loopback only,
 // bounded in time and count. Prints figures; asserts nothing (targets are read by people).
+import { existsSync, readFileSync, readdirSync, statSync } from 'node:fs'
 import { gzipSync } from 'node:zlib'
 import autocannon from 'autocannon'
 import { chromium } from '@playwright/test'
@@ -129,7 +130,66 @@ async function casePageInBrowser(cookie, caseId) {
   }
 }
 
+/** Peak resident memory (VmHWM) of each process of the app server on this machine, MB. */
+function serverPeaks() {
+  const peaks = []
+  for (const pid of readdirSync('/proc').filter((d) => /^\d+$/.test(d))) {
+    try {
+      const cmd = readFileSync(`/proc/${pid}/cmdline`, 'utf8')
+      const env = readFileSync(`/proc/${pid}/environ`, 'utf8')
+      if (!cmd.includes('.output/server/index.mjs') || !env.includes(`PORT=${new URL(BASE).port}\0`)) continue
+      const hwm = /VmHWM:\s+(\d+) kB/.exec(readFileSync(`/proc/${pid}/status`, 'utf8'))
+      if (hwm) peaks.push(Number(hwm[1]) / 1024)
+    } catch {
+      // A process that ended or is not ours to read.
+    }
+  }
+  return peaks
+}
+
+/**
+ * The 50 MB logger file of the in-process benchmark, sent over HTTP to a case, mapped and analysed by
+ * the server's background job: upload time, time to a finished analysis, and the server's peak memory.
+ */
+async function loggerUpload(cookie) {
+  const file = new URL('../.bench/logger-1m-rows-v2.csv', import.meta.url)
+  if (!existsSync(file)) return console.log('logger upload: skipped (run scripts/bench-logger.ts first to make the file)')
+  const headers = { cookie, 'content-type': 'application/json' }
+  const units = await (await fetch(`${BASE}/api/units`, { headers })).json()
+  const opened = await (await fetch(`${BASE}/api/cases`, { method: 'POST', headers, body: JSON.stringify({ unitId: units[0].id, complaint: 'Logger benchmark', symptoms: [] }) })).json()
+  const bytes = readFileSync(file)
+  const t0 = Date.now()
+  const up = await fetch(`${BASE}/api/cases/${opened.id}/logger-files?name=bench.csv`, { method: 'POST', headers: { cookie, 'content-type': 'text/csv' }, body: bytes })
+  const uploaded = await up.json()
+  if (up.status !== 201) throw new Error(`logger upload failed: ${up.status} ${JSON.stringify(uploaded)}`)
+  const t1 = Date.now()
+  const mapping = {
+    time: { column: 'Zeit' }, setpointC: -80,
+    columns: [
+      { column: 'Innenraum (°C)', quantity: 'cabinetTemperature', unit: 'C' }, { column: 'Kaskade (°C)', quantity: 'cascadeHxTemperature', unit: 'C' },
+      { column: 'Raum (°C)', quantity: 'ambientTemperature', unit: 'C' }, { column: 'Verdichter', quantity: 'compressorRunning', stage: 'low', unit: 'bool' },
+      { column: 'Strom (A)', quantity: 'compressorCurrent', stage: 'low', unit: 'A' },
+    ],
+  }
+  const queued = await (await fetch(`${BASE}/api/logger-files/${uploaded.id}/process`, { method: 'POST', headers, body: JSON.stringify({ mapping }) })).json()
+  let job
+  for (let i = 0; i < 1200; i++) {
+    // A poll that meets a connection closed by the server is simply repeated.
+    job = await fetch(`${BASE}/api/jobs/${queued.jobId}`, { headers }).then((r) => r.json()).catch((error) => (console.log(`  (poll: ${error.cause?.code ?? error.message})`), job))
+    if (job.state === 'done' || job.state === 'failed') break
+    await new Promise((r) => setTimeout(r, 250))
+  }
+  const t2 = Date.now()
+  const peaks = serverPeaks()
+  console.log(`logger file over HTTP (${(statSync(file).size / 1048576).toFixed(1)} MB, job ${job?.state}, ${job?.result?.rows?.toLocaleString('en-US')} rows)`)
+  console.log(`  upload with first look ${((t1 - t0) / 1000).toFixed(2)} s; mapping check, queue and analysis ${((t2 - t1) / 1000).toFixed(2)} s`)
+  console.log(`  server processes' peak memory (VmHWM): ${peaks.map((p) => `${p.toFixed(0)} MB`).join(', ') || 'not readable'} (target 300 MB for the process doing the work)`)
+}
+
 const cookie = await signIn('tech@rimecase.demo')
+await loggerUpload(cookie)
+// RIMECASE_BENCH_ONLY=logger stops after the logger upload.
+if (process.env.RIMECASE_BENCH_ONLY === 'logger') process.exit(0)
 await rankVersusTrivial(cookie)
 const caseId = await addReadingLatency(cookie, 0)
 await addReadingLatency(cookie, 500)

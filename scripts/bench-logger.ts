@@ -50,13 +50,16 @@ async function generate(): Promise<void> {
 
 /**
  * The source of the bytes: the file streamed from disk, or (`stored`) the whole file held in one buffer
- * and fed in 256 KB slices, as the server's background job reads an upload back from its file store.
+ * and fed in 64 KB slices, as the server's background job reads an upload back from its file store.
  */
 function source(stored: boolean): Readable {
   if (!stored) return createReadStream(FILE)
   const bytes = readFileSync(FILE)
-  return Readable.from((function* () {
-    for (let i = 0; i < bytes.length; i += 256 * 1024) yield bytes.subarray(i, i + 256 * 1024)
+  return Readable.from((async function* () {
+    for (let i = 0, n = 0; i < bytes.length; i += 64 * 1024, n++) {
+      yield bytes.subarray(i, i + 64 * 1024)
+      if (n % 8 === 7) await new Promise((resolve) => setImmediate(resolve))
+    }
   })())
 }
 

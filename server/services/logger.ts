@@ -23,7 +23,7 @@ import type { Actor } from './types'
 
 /** How much of the head of a file the mapping step checks before queueing the whole analysis. */
 const HEAD_BYTES = 256 * 1024
-const SLICE_BYTES = 256 * 1024
+const SLICE_BYTES = 64 * 1024
 
 /** The first `HEAD_BYTES` of the file, cut after its last whole line. */
 function headOf(bytes: Buffer): Buffer {
@@ -32,10 +32,17 @@ function headOf(bytes: Buffer): Buffer {
   return bytes.subarray(0, cut > 0 ? cut + 1 : HEAD_BYTES)
 }
 
-/** The bytes as a stream of slices, so the parser never holds more than one slice of text at a time. */
+/**
+ * The bytes as a stream of slices, so the parser never holds more than one slice of text at a time.
+ * The analysis runs in a web process: every few slices it lets the process answer other requests and
+ * its database pool's timers, which a tight loop over a buffer in memory would starve.
+ */
 function sliced(bytes: Buffer): Readable {
-  return Readable.from((function* () {
-    for (let i = 0; i < bytes.length; i += SLICE_BYTES) yield bytes.subarray(i, i + SLICE_BYTES)
+  return Readable.from((async function* () {
+    for (let i = 0, n = 0; i < bytes.length; i += SLICE_BYTES, n++) {
+      yield bytes.subarray(i, i + SLICE_BYTES)
+      if (n % 8 === 7) await new Promise((resolve) => setImmediate(resolve))
+    }
   })())
 }
 
@@ -113,7 +120,8 @@ export const loggerAnalysisJob = defineJob<LoggerJobData, { loggerFileId: number
     const unit = unitId ? await findUnit(job.organisationId, unitId) : null
     const analysis = await processLoggerCsv(sliced(bytes), record.mapping, {
       totalBytes: bytes.length,
-      onProgress: (p) => void job.progress((p.fraction ?? 0) * 0.98),
+      // Progress is shown, not needed: a write that fails (a busy pool) must not fail the analysis.
+      onProgress: (p) => void job.progress((p.fraction ?? 0) * 0.98).catch(() => undefined),
       ...(unit?.design.cabinetC != null ? { unitSetpointC: unit.design.cabinetC } : {}),
     })
     await saveLoggerAnalysis(record.id, analysis)
