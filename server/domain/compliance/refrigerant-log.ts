@@ -15,7 +15,7 @@
  */
 import type { ApplianceType, LeakRateAssessmentDto, LeakRateMethod } from '#shared/types/compliance'
 import type { Stage } from '#shared/types/diagnosis'
-import type { AdditionPurpose, CheckKind } from '#shared/types/refrigerant-log'
+import type { AdditionPurpose, CheckKind, LogEntryDto } from '#shared/types/refrigerant-log'
 import { BadInputError } from '#server/domain/errors'
 import { dayNumber, instant, isoDay } from './calendar'
 import { MAX_ANNUALIZING_DAYS, assessLeakRate } from './leak-rate'
@@ -70,24 +70,8 @@ export interface LogOptions {
   applianceType?: ApplianceType
 }
 
-export interface LogEntry {
-  index: number
-  id?: string | number
-  at: string
-  day: string
-  direction: 'added' | 'recovered'
-  grams: number
-  refrigerant: string
-  cylinder: string | null
-  technician: string | null
-  caseId: string | number | null
-  purpose: AdditionPurpose | null
-  /** Estimated charge in the stage after this line, grams. */
-  chargeAfterG: number
-  /** Grams of this line that count as a loss for the leak rate (additions only). */
-  countedAsLossG: number
-  warnings: string[]
-}
+/** One line of a stage's log with the charge after it; the wire shape is the DTO itself. */
+export type LogEntry = LogEntryDto
 
 /** One addition for leak-rate purposes: one or more log lines for the same leak. */
 export interface AdditionEvent {
