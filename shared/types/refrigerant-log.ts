@@ -41,10 +41,13 @@ export interface AdditionEventDto {
   caseId: string | number | null
   addedG: number
   countedAsLossG: number
+  /** Days since refrigerant was last added (null for the first addition on record). */
   daysSinceLastAddition: number | null
+  /** The days the annualizing method divided by. */
   daysUsed: number | null
   annualizingPercent: number | null
   rollingAveragePercent: number | null
+  /** Why no leak rate was calculated, if none was. */
   exemptBecause: string | null
   note: string
   assessment: LeakRateAssessmentDto | null

@@ -15,7 +15,7 @@
  */
 import type { ApplianceType, LeakRateAssessmentDto, LeakRateMethod } from '#shared/types/compliance'
 import type { Stage } from '#shared/types/diagnosis'
-import type { AdditionPurpose, CheckKind, LogEntryDto } from '#shared/types/refrigerant-log'
+import type { AdditionEventDto, AdditionPurpose, CheckKind, LogEntryDto } from '#shared/types/refrigerant-log'
 import { BadInputError } from '#server/domain/errors'
 import { dayNumber, instant, isoDay } from './calendar'
 import { MAX_ANNUALIZING_DAYS, assessLeakRate } from './leak-rate'
@@ -73,24 +73,8 @@ export interface LogOptions {
 /** One line of a stage's log with the charge after it; the wire shape is the DTO itself. */
 export type LogEntry = LogEntryDto
 
-/** One addition for leak-rate purposes: one or more log lines for the same leak. */
-export interface AdditionEvent {
-  day: string
-  entryIndexes: number[]
-  caseId: string | number | null
-  addedG: number
-  countedAsLossG: number
-  /** Days since refrigerant was last added (null for the first addition on record). */
-  daysSinceLastAddition: number | null
-  /** The days the annualizing method divided by. */
-  daysUsed: number | null
-  annualizingPercent: number | null
-  rollingAveragePercent: number | null
-  /** Why no leak rate was calculated, if none was. */
-  exemptBecause: string | null
-  note: string
-  assessment: LeakRateAssessmentDto | null
-}
+/** One addition for leak-rate purposes: one or more log lines for the same leak; the wire shape is the DTO itself. */
+export type AdditionEvent = AdditionEventDto
 
 export interface StageLog {
   stage: Stage
