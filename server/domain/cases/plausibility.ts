@@ -7,6 +7,9 @@
 //   at -200 °C). Kept only when the technician confirms it with a reason; the record marks it.
 // Envelope limits are common practice, no source: they catch typing slips (a missing minus sign,
 // psig typed as kPa) without refusing a true but alarming reading.
+// A refrigerant pressure above what any refrigeration stage can hold is impossible too, even where
+// the refrigerant's equation of state reaches further (ethane's runs to 900 MPa): see
+// STAGE_CEILING_KPA and DESIGN_PRESSURE_CEILING_TIMES.
 // Pure: no I/O.
 import type { Reading, Stage } from '#shared/types/diagnosis'
 import type { UnitDto } from '#shared/types/equipment-dto'
@@ -39,6 +42,25 @@ const CURRENT_TIMES_RATED = 3
 const CURRENT_WITHOUT_RATING_A = 80
 /** Readings above the design pressure by more than this share ask for confirmation. */
 const DESIGN_PRESSURE_MARGIN = 1.1
+/**
+ * Absolute pressure (kPa) no refrigeration stage holds: the highest pressures in refrigeration
+ * service, transcritical R744 gas coolers, stay below about 14 MPa, and the small cascade and
+ * single-stage units here are built for far less (common practice, no source).
+ */
+export const STAGE_CEILING_KPA = 20_000
+/**
+ * Pressure parts are commonly proven to burst at a few times (three to five) their design pressure;
+ * a stage reading above five times its nameplate design pressure would have burst (common practice, no source).
+ */
+export const DESIGN_PRESSURE_CEILING_TIMES = 5
+
+/** The highest refrigerant pressure (absolute kPa) a stage can physically hold, and why. */
+export function stageCeiling(designPressureKpa: number | null | undefined): { kpa: number; why: string } {
+  if (designPressureKpa && designPressureKpa * DESIGN_PRESSURE_CEILING_TIMES < STAGE_CEILING_KPA) {
+    return { kpa: designPressureKpa * DESIGN_PRESSURE_CEILING_TIMES, why: `${DESIGN_PRESSURE_CEILING_TIMES} times the stage's design pressure of ${formatPressure(designPressureKpa, { decimals: 0 })}; the stage would have burst` }
+  }
+  return { kpa: STAGE_CEILING_KPA, why: 'more than any refrigeration stage is built to hold' }
+}
 
 export interface EnvelopeQuestion {
   index: number
@@ -103,6 +125,12 @@ function checkOne(r: Reading, unit: Pick<UnitDto, 'stages'>, atmosphericKpa: num
       if (kpa > limits.maxKpa) {
         return { impossible: `${name} ${shown} is above ${formatPressure(limits.maxKpa, { decimals: 0 })}, beyond any state ${designation}'s equation of state covers; check the unit and the figure.` }
       }
+    }
+    const ceiling = stageCeiling(stage?.designPressureKpa)
+    if (kpa > ceiling.kpa) {
+      return { impossible: `${name} ${shown} is above ${formatPressure(ceiling.kpa, { decimals: 0 })}, ${ceiling.why}; check the unit and the figure.` }
+    }
+    if (designation) {
       const design = stage?.designPressureKpa ?? null
       if (design !== null && kpa > design * DESIGN_PRESSURE_MARGIN) {
         return { envelope: `${name} ${shown} is above the stage's design pressure of ${formatPressure(design, { decimals: 0 })}.` }

@@ -54,4 +54,40 @@ describe('plausibility of readings', () => {
     expect(checkReadings(withDesign, [{ quantity: 'dischargePressure', stage: 'high', value: 350, unit: 'psig' }], SEA_LEVEL).outsideEnvelope).toEqual([])
     expect(checkReadings(withDesign, [{ quantity: 'dischargePressure', stage: 'high', value: 400, unit: 'psig' }], SEA_LEVEL).outsideEnvelope[0]!.message).toMatch(/design pressure/)
   })
+
+  describe('pressures no refrigeration stage can hold (ceiling: common practice, no source)', () => {
+    const ethane = { stages: stages.map((s) => (s.stage === 'low' ? { ...s, refrigerant: 'R170' } : s)) }
+
+    it('refuses 99 999 psig on an R170 stage although ethane\'s equation of state reaches 900 MPa (Bücker & Wagner 2006)', () => {
+      // 99 999 psig = 689 570 kPa absolute at sea level (1 psi = 6.894757 kPa, NIST SP 811): inside the EOS range.
+      const verdict = checkReadings(ethane, [{ quantity: 'dischargePressure', stage: 'low', value: 99_999, unit: 'psig' }], SEA_LEVEL)
+      expect(verdict.impossible['readings.0.value']![0]).toMatch(/more than any refrigeration stage is built to hold/)
+      expect(verdict.outsideEnvelope).toEqual([])
+      // 3000 psig = 20 786 kPa absolute: just above the 20 MPa ceiling; 2800 psig = 19 407 kPa is below it.
+      expect(checkReadings(ethane, [{ quantity: 'standingPressure', stage: 'low', value: 3000, unit: 'psig' }], SEA_LEVEL).impossible['readings.0.value']).toBeDefined()
+      expect(checkReadings(ethane, [{ quantity: 'standingPressure', stage: 'low', value: 2800, unit: 'psig' }], SEA_LEVEL).impossible).toEqual({})
+    })
+
+    it('keeps a merely far-outside pressure as a question: 800 psig of ethane is above its critical pressure of 4872 kPa (Bücker & Wagner 2006)', () => {
+      // 800 psig = 5617 kPa absolute at sea level.
+      const verdict = checkReadings(ethane, [{ quantity: 'dischargePressure', stage: 'low', value: 800, unit: 'psig' }], SEA_LEVEL)
+      expect(verdict.impossible).toEqual({})
+      expect(verdict.outsideEnvelope[0]!.message).toMatch(/critical pressure of R170/)
+    })
+
+    it('with a nameplate design pressure, refuses above five times it and asks between 1.1 and 5 times it', () => {
+      const withDesign = { stages: ethane.stages.map((s) => (s.stage === 'low' ? { ...s, designPressureKpa: 1500 } : s)) }
+      // 5 × 1500 kPa = 7500 kPa. 1100 psig = 7686 kPa absolute: refused; 1000 psig = 6996 kPa: asked.
+      const refused = checkReadings(withDesign, [{ quantity: 'suctionPressure', stage: 'low', value: 1100, unit: 'psig' }], SEA_LEVEL)
+      expect(refused.impossible['readings.0.value']![0]).toMatch(/5 times the stage's design pressure/)
+      const asked = checkReadings(withDesign, [{ quantity: 'suctionPressure', stage: 'low', value: 1000, unit: 'psig' }], SEA_LEVEL)
+      expect(asked.impossible).toEqual({})
+      expect(asked.outsideEnvelope[0]!.message).toMatch(/design pressure/)
+    })
+
+    it('applies the ceiling to a refrigerant the app has no equation of state for', () => {
+      const unknown = { stages: stages.map((s) => (s.stage === 'high' ? { ...s, refrigerant: 'R9999X' } : s)) }
+      expect(checkReadings(unknown, [{ quantity: 'dischargePressure', stage: 'high', value: 99_999, unit: 'psig' }], SEA_LEVEL).impossible['readings.0.value']).toBeDefined()
+    })
+  })
 })
