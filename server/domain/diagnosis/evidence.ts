@@ -181,36 +181,44 @@ export function rankHypotheses(model: KindModel, causes: CauseDef[], priors: num
   for (const c of contributions) for (let i = 0; i < H; i++) logPost[i] = (logPost[i] as number) + c.weight * (c.logL[i] as number)
   const posterior = softmax(logPost)
   const titles = new Map(causes.map((c) => [c.slug, c.title]))
-  const shown = contributions.filter((c) => c.weight > 0).map((c) => ({ c, mean: priorWeightedLog(c.logL, priors) }))
-  const ranked = model.hypotheses
-    .map((h, i) => ({ h, i }))
-    .filter(({ i }) => live[i])
-    .map(({ h, i }): RankedCause => {
-      const evidence: (EvidenceItem & { s: number })[] = []
-      const against: (EvidenceItem & { s: number })[] = []
-      for (const { c, mean } of shown) {
-        const s = c.weight * ((c.logL[i] as number) - mean)
-        if (Math.abs(s) < Math.log(EVIDENCE_SHOWN_FROM)) continue
-        const item = { rule: c.id, text: c.text, s }
-        ;(s > 0 ? evidence : against).push(item)
-      }
-      const top = (xs: typeof evidence) =>
-        xs
-          .sort((a, b) => Math.abs(b.s) - Math.abs(a.s))
-          .slice(0, EVIDENCE_SHOWN_MAX)
-          .map(({ rule, text, s }) => ({ rule, text, factor: Number(Math.exp(s).toPrecision(2)) }))
-      return {
-        cause: h.cause,
-        ...(h.stage ? { stage: h.stage } : {}),
-        probability: posterior[i] ?? 0,
-        title: titles.get(h.cause) ?? h.cause,
-        prior: priors[i] ?? 0,
-        evidence: top(evidence),
-        evidenceAgainst: top(against),
-      }
+  const shown = contributions.filter((c) => c.weight > 0)
+  const means = shown.map((c) => priorWeightedLog(c.logL, priors))
+  const threshold = Math.log(EVIDENCE_SHOWN_FROM)
+  const ranked: RankedCause[] = []
+  for (let i = 0; i < H; i++) {
+    if (!live[i]) continue
+    const h = model.hypotheses[i] as Hypothesis
+    const evidence: { c: Contribution; s: number }[] = []
+    const against: { c: Contribution; s: number }[] = []
+    for (let k = 0; k < shown.length; k++) {
+      const c = shown[k] as Contribution
+      const s = c.weight * ((c.logL[i] as number) - (means[k] as number))
+      if (s >= threshold) evidence.push({ c, s })
+      else if (s <= -threshold) against.push({ c, s })
+    }
+    ranked.push({
+      cause: h.cause,
+      ...(h.stage ? { stage: h.stage } : {}),
+      probability: posterior[i] ?? 0,
+      title: titles.get(h.cause) ?? h.cause,
+      prior: priors[i] ?? 0,
+      evidence: strongest(evidence),
+      evidenceAgainst: strongest(against),
     })
-    .sort((a, b) => b.probability - a.probability || `${a.cause}@${a.stage ?? ''}`.localeCompare(`${b.cause}@${b.stage ?? ''}`))
+  }
+  ranked.sort((a, b) => b.probability - a.probability || `${a.cause}@${a.stage ?? ''}`.localeCompare(`${b.cause}@${b.stage ?? ''}`))
   return { hypotheses: model.hypotheses, posterior, causes: ranked }
+}
+
+/** The findings that moved a cause most, strongest first, as people read them. */
+function strongest(xs: { c: Contribution; s: number }[]): EvidenceItem[] {
+  if (xs.length > 1) xs.sort((a, b) => Math.abs(b.s) - Math.abs(a.s))
+  const out: EvidenceItem[] = []
+  for (let k = 0; k < xs.length && k < EVIDENCE_SHOWN_MAX; k++) {
+    const { c, s } = xs[k] as { c: Contribution; s: number }
+    out.push({ rule: c.id, text: c.text, factor: Number(Math.exp(s).toPrecision(2)) })
+  }
+  return out
 }
 
 /** log of the prior-weighted average likelihood: the yardstick a cause's own likelihood is compared with. */

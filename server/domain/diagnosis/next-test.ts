@@ -148,38 +148,46 @@ export interface NextTestInput {
   done: ResolvedTestResult[]
   /** Reading keys present (`stage:quantity`). */
   readingsPresent: Set<string>
+  /** Only the best `limit` proposals are put in words and returned (all of them when absent). */
+  limit?: number
 }
 
-export function proposeTests({ kb, model, kind, posterior, done, readingsPresent }: NextTestInput): ProposedTest[] {
+export function proposeTests({ kb, model, kind, posterior, done, readingsPresent, limit }: NextTestInput): ProposedTest[] {
   const hNow = entropyBits(posterior)
   const doneKeys = new Set(done.map((d) => `${d.test.slug}@${d.stage}`))
+  const candidates: { test: TestDef; stage: Stage; g: Gain; score: number }[] = []
+  for (const test of kb.tests) {
+    for (const stage of test.stages) {
+      if (!STAGES_OF_KIND[kind].includes(stage)) continue
+      if (doneKeys.has(`${test.slug}@${stage}`) || (test.answeredBy && readingsPresent.has(`${stage}:${test.answeredBy}`))) continue
+      const g = expectedGain(testLikelihoods(model, test, stage).probs, posterior, hNow)
+      if (g.gain < MIN_GAIN_BITS) continue
+      candidates.push({ test, stage, g, score: g.gain / testCostMinutes(test) })
+    }
+  }
+  candidates.sort((a, b) => b.score - a.score || a.test.slug.localeCompare(b.test.slug) || a.stage.localeCompare(b.stage))
+  // Putting a test's value in words compares the leading hypotheses pair by pair; only the tests
+  // that will be shown need it.
   const shortNames = new Map(kb.causes.map((c) => [c.slug, c.short]))
   // Hypotheses worth naming, likeliest first (ties in model order, as the pair search expects).
   const leading = model.hypotheses
     .map((h, i) => ({ h, i, p: posterior[i] ?? 0 }))
     .filter((x) => x.p >= NAMED_FROM)
     .sort((x, y) => y.p - x.p || x.i - y.i)
-  const out: ProposedTest[] = []
-  for (const test of kb.tests) {
-    for (const stage of test.stages.filter((s) => STAGES_OF_KIND[kind].includes(s))) {
-      if (doneKeys.has(`${test.slug}@${stage}`) || (test.answeredBy && readingsPresent.has(`${stage}:${test.answeredBy}`))) continue
-      const g = expectedGain(testLikelihoods(model, test, stage).probs, posterior, hNow)
-      if (g.gain < MIN_GAIN_BITS) continue
-      const value = valueInWords(g, leading, shortNames)
-      out.push({
-        test: test.slug,
-        stage,
-        expectedGain: Math.round(g.gain * 1000) / 1000,
-        value: value.text,
-        minutes: test.minutes,
-        title: test.title,
-        score: g.gain / testCostMinutes(test),
-        opensSystem: test.opensSystem,
-        hotWork: test.hotWork,
-        safetyNotes: test.safetyNotes,
-        separates: value.separates,
-      })
+  return candidates.slice(0, limit ?? candidates.length).map(({ test, stage, g, score }): ProposedTest => {
+    const value = valueInWords(g, leading, shortNames)
+    return {
+      test: test.slug,
+      stage,
+      expectedGain: Math.round(g.gain * 1000) / 1000,
+      value: value.text,
+      minutes: test.minutes,
+      title: test.title,
+      score,
+      opensSystem: test.opensSystem,
+      hotWork: test.hotWork,
+      safetyNotes: test.safetyNotes,
+      separates: value.separates,
     }
-  }
-  return out.sort((a, b) => b.score - a.score || a.test.localeCompare(b.test) || a.stage.localeCompare(b.stage))
+  })
 }

@@ -6,12 +6,12 @@
  */
 import type { RankedCause, RankRequest, RankResponse, StageConfig } from '#shared/types/diagnosis'
 import { prepareKnowledgeBase, runFindings, sharpenWith } from './engine'
-import { findingContributions, modelFor, rankHypotheses, testContributions } from './evidence'
+import { findingContributions, modelFor, rankHypotheses, testContributions, type KindModel } from './evidence'
 import { deriveFacts } from './facts'
 import { unitRecordFactor } from './hypotheses'
 import type { KnowledgeBase } from './knowledge-base'
 import { proposeTests } from './next-test'
-import { priorsFor, type RankOptions } from './priors'
+import { priorsFor, type Priors, type RankOptions } from './priors'
 import { resolveTestResults } from './test-results'
 
 export { confirmationIsDefinitive, RankInputError } from './test-results'
@@ -27,15 +27,14 @@ export async function rankDiagnosis(kb: KnowledgeBase, request: RankRequest, opt
   const prepared = prepareKnowledgeBase(kb)
   const run = await runFindings(prepared, derived.facts)
   const model = modelFor(prepared, kb.causes, kind)
-  const factors = model.hypotheses.map((h) => unitRecordFactor(h, request.unit.stages))
-  const priors = priorsFor(kb.causes, kind, model.hypotheses, options, factors)
+  const priors = startingOdds(kb, model, request, options)
   const tested = testContributions(model, results.diagnosis, run.applied, derived.facts)
   const ranking = rankHypotheses(model, kb.causes, priors.values, [...findingContributions(model, run.applied, derived.facts), ...tested.contributions])
-  const tests = proposeTests({ kb, model, kind, posterior: ranking.posterior, done: results.diagnosis, readingsPresent: derived.readingsPresent })
+  const tests = proposeTests({ kb, model, kind, posterior: ranking.posterior, done: results.diagnosis, readingsPresent: derived.readingsPresent, limit: MAX_PROPOSED_TESTS })
   const stages = new Set(request.unit.stages.map((s) => s.stage))
   return {
     causes: ranking.causes,
-    tests: tests.slice(0, MAX_PROPOSED_TESTS),
+    tests,
     derived: derived.derived,
     warnings: [...derived.warnings, ...tested.warnings],
     priorNote: priors.note,
@@ -43,6 +42,27 @@ export async function rankDiagnosis(kb: KnowledgeBase, request: RankRequest, opt
     missingReadings: sharpenWith(run, derived.readingsPresent, kind, stages, unsuppliedByStageData(request.unit.stages)),
     knowledgeBaseVersion: kb.version,
   }
+}
+
+const PRIORS_KEPT = 256
+const priorsMemo = new WeakMap<KindModel, Map<string, Priors>>()
+
+/**
+ * The starting odds of a request's unit. They depend only on the version's causes, the unit kind, the
+ * unit record's factors, the equipment class and the learned counts, which repeat from one request
+ * to the next; so they are kept per compiled model (one per version and kind), a bounded few.
+ */
+function startingOdds(kb: KnowledgeBase, model: KindModel, request: RankRequest, options: RankOptions): Priors {
+  const factors = model.hypotheses.map((h) => unitRecordFactor(h, request.unit.stages))
+  const key = `${options.equipmentClass ?? ''}|${factors.join(',')}|${JSON.stringify(options.learnedCounts ?? [])}`
+  let memo = priorsMemo.get(model)
+  if (!memo) priorsMemo.set(model, (memo = new Map()))
+  const hit = memo.get(key)
+  if (hit) return hit
+  const priors = priorsFor(kb.causes, model.kind, model.hypotheses, options, factors)
+  if (memo.size >= PRIORS_KEPT) memo.delete(memo.keys().next().value as string)
+  memo.set(key, priors)
+  return priors
 }
 
 /** Standing-pressure comparisons need charge and volume, or a reference pair; without them no reading helps. */
@@ -72,8 +92,7 @@ export async function rankCauses(kbs: readonly KnowledgeBase[], request: RankReq
     const prepared = prepareKnowledgeBase(kb)
     const run = await runFindings(prepared, derived.facts)
     const model = modelFor(prepared, kb.causes, kind)
-    const factors = model.hypotheses.map((h) => unitRecordFactor(h, request.unit.stages))
-    const priors = priorsFor(kb.causes, kind, model.hypotheses, options, factors)
+    const priors = startingOdds(kb, model, request, options)
     const tested = testContributions(model, results.diagnosis, run.applied, derived.facts)
     out.push(rankHypotheses(model, kb.causes, priors.values, [...findingContributions(model, run.applied, derived.facts), ...tested.contributions]).causes)
   }

@@ -60,4 +60,20 @@ describe('next test (decision-theoretic troubleshooting, Heckerman, Breese & Rom
     const tests = proposeTests({ kb: { tests: [answered, fakeTest('leak-search', false)], causes }, model: model(), kind: 'single-stage', posterior: [0.5, 0.5], done: [], readingsPresent: new Set(['single:standingPressure']) })
     expect(tests.map((t) => t.test)).toEqual(['leak-search'])
   })
+
+  it('puts only the best few in words when a limit is given, in the same order as the whole list', () => {
+    const input = {
+      kb: { tests: [fakeTest('nitrogen-pressure-test', true), fakeTest('leak-search', false), fakeTest('standing-pressure-check', false)], causes },
+      model: model(),
+      kind: 'single-stage' as const,
+      posterior: [0.5, 0.5],
+      done: [],
+      readingsPresent: new Set<string>(),
+    }
+    const all = proposeTests(input)
+    const best = proposeTests({ ...input, limit: 2 })
+    expect(all).toHaveLength(3)
+    expect(best).toEqual(all.slice(0, 2))
+    expect(best.map((t) => t.test)).not.toContain('nitrogen-pressure-test')
+  })
 })
