@@ -36,3 +36,29 @@ test('a technician uploads a logger file to a case, maps it, follows the analysi
   const record = (await (await page.request.get(`/api/cases/${caseId}`)).json()) as { readings: { quantity: string }[] }
   expect(record.readings.map((r) => r.quantity)).toContain('cabinetTemperature')
 })
+
+test('a logger file without a header row is mapped by column position and analysed', async ({ page }) => {
+  await page.setViewportSize(DESKTOP)
+  await signIn(page, 'tech@rimecase.demo')
+  const units = (await (await page.request.get('/api/units')).json()) as { id: number }[]
+  const opened = await page.request.post('/api/cases', { data: { unitId: units[0]!.id, complaint: 'Logger export without column names', symptoms: [] } })
+  const caseId = ((await opened.json()) as { id: number }).id
+  // Ambient first, then time, then cabinet: positions the form must keep.
+  const bare = cabinet.map((c, m) => `21.0,${isoTime(m)},${c.toFixed(2)}`).join('\n') + '\n'
+
+  await gotoReady(page, `/cases/${caseId}/logger`)
+  await page.getByLabel('Logger file (CSV)').setInputFiles({ name: 'bare-log.csv', mimeType: 'text/csv', buffer: Buffer.from(bare) })
+  await page.getByRole('button', { name: 'Upload' }).click()
+  await expect(page.getByRole('heading', { name: 'Map the columns of bare-log.csv' })).toBeVisible()
+  await expect(page.getByTestId('mapping-by-position')).toBeVisible()
+  await page.getByLabel('Time column').selectOption('column 2')
+  await page.getByLabel('Use column column 3').check()
+  await page.getByLabel('Quantity in column 3').selectOption('cabinetTemperature')
+  await page.getByLabel('Setpoint, °C (empty: the unit\'s design)').fill('-80')
+  await page.getByRole('button', { name: 'Analyse the file' }).click()
+
+  await expect(page.getByRole('heading', { name: 'What the logger shows' })).toBeVisible({ timeout: 30_000 })
+  await expect(page.getByRole('article', { name: 'Stalls above the setpoint' })).toContainText('−50')
+  const file = (await (await page.request.get(`/api/cases/${caseId}/logger-files`)).json()) as { mapping: { hasHeader?: boolean; time: { column: unknown } } }[]
+  expect(file[0]!.mapping).toMatchObject({ hasHeader: false, time: { column: 1 } })
+})

@@ -40,4 +40,35 @@ describe('the column-mapping form', () => {
     expect(needsStage('suctionPressure')).toBe(true)
     expect(needsStage('cabinetTemperature')).toBe(false)
   })
+
+  it('maps a file without a header row by column position, as the server schema requires', () => {
+    const positions = ['column 1', 'column 2', 'column 3']
+    const form = mappingForm(positions, { hasHeader: false, time: { column: 0 }, columns: [] }, 'low')
+    expect(form.byPosition).toBe(true)
+    expect(form.timeColumn).toBe('column 1')
+    Object.assign(form.rows.find((r) => r.column === 'column 3')!, { include: true, quantity: 'cabinetTemperature', unit: 'C' })
+    Object.assign(form.rows.find((r) => r.column === 'column 2')!, { include: true, quantity: 'suctionPressure', unit: 'psig' })
+    const mapping = mappingOf(form, null)
+    expect(mapping.hasHeader).toBe(false)
+    expect(mapping.time.column).toBe(0)
+    expect(mapping.columns).toEqual([
+      { column: 1, quantity: 'suctionPressure', unit: 'psig', stage: 'low' },
+      { column: 2, quantity: 'cabinetTemperature', unit: 'C' },
+    ])
+    expect(LoggerMappingSchema.safeParse(mapping).success).toBe(true)
+  })
+
+  it('fills a remembered by-position mapping back into the form, time column included', () => {
+    const positions = ['column 1', 'column 2', 'column 3']
+    const form = mappingForm(positions, { hasHeader: false, time: { column: 2 }, columns: [{ column: 0, quantity: 'ambientTemperature', unit: 'F' }] }, 'single', true)
+    expect(form.timeColumn).toBe('column 3')
+    expect(form.rows.find((r) => r.position === 0)).toMatchObject({ include: true, quantity: 'ambientTemperature', unit: 'F' })
+    expect(mappingOf(form, null).time.column).toBe(2)
+  })
+
+  it('keeps names for a file with a header', () => {
+    const mapping = mappingOf(mappingForm(header, null, 'low'), null)
+    expect(mapping.hasHeader).toBeUndefined()
+    expect(mapping.time.column).toBe('Zeit')
+  })
 })
