@@ -8,12 +8,13 @@
  * The series is invented: a pull-down with a stall, door openings and daily ambient swings.
  */
 import { spawnSync } from 'node:child_process'
-import { createReadStream, createWriteStream, existsSync, mkdirSync, readFileSync, statSync } from 'node:fs'
+import { copyFileSync, createReadStream, createWriteStream, existsSync, mkdirSync, statSync } from 'node:fs'
 import { Readable } from 'node:stream'
 import { join } from 'node:path'
 import { performance } from 'node:perf_hooks'
 import { fileURLToPath } from 'node:url'
 import { processLoggerCsv } from '#server/domain/logger/logger-processor'
+import { openStoredStream } from '#server/utils/upload-storage'
 
 const ROOT = fileURLToPath(new URL('..', import.meta.url))
 const FILE = join(ROOT, '.bench', 'logger-1m-rows-v2.csv')
@@ -49,16 +50,23 @@ async function generate(): Promise<void> {
 }
 
 /**
- * The source of the bytes: the file streamed from disk, or (`stored`) the whole file held in one buffer
- * and fed in 64 KB slices, as the server's background job reads an upload back from its file store.
+ * The source of the bytes: the file streamed from disk, or (`stored`) the file put in an upload store
+ * on disk (the fs driver the server mounts) and opened from it a chunk at a time, with a pause every few
+ * chunks, as the server's background job reads an upload back.
  */
-function source(stored: boolean): Readable {
+async function source(stored: boolean): Promise<Readable> {
   if (!stored) return createReadStream(FILE)
-  const bytes = readFileSync(FILE)
+  const store = join(ROOT, '.bench', 'upload-store')
+  const key = 'org-0/logger-bench'
+  mkdirSync(join(store, 'org-0'), { recursive: true })
+  if (!existsSync(join(store, key)) || statSync(join(store, key)).size !== statSync(FILE).size) copyFileSync(FILE, join(store, key))
+  const opened = await openStoredStream({ uploadDriver: 'fs', uploadDir: store }, key)
+  if (!opened) throw new Error('the benchmark file is missing from its upload store')
   return Readable.from((async function* () {
-    for (let i = 0, n = 0; i < bytes.length; i += 64 * 1024, n++) {
-      yield bytes.subarray(i, i + 64 * 1024)
-      if (n % 8 === 7) await new Promise((resolve) => setImmediate(resolve))
+    let n = 0
+    for await (const chunk of opened.stream) {
+      yield chunk as Buffer
+      if (n++ % 8 === 7) await new Promise((resolve) => setImmediate(resolve))
     }
   })())
 }
@@ -69,7 +77,7 @@ async function measure(stored: boolean): Promise<void> {
   let progressCalls = 0
   const t0 = performance.now()
   const result = await processLoggerCsv(
-    source(stored),
+    await source(stored),
     {
       time: { column: 'Zeit' },
       columns: [
@@ -119,7 +127,7 @@ if (process.argv.includes('--measure')) {
     console.log(`generated ${FILE} (${(statSync(FILE).size / 1048576).toFixed(1)} MB) in ${((performance.now() - t) / 1000).toFixed(1)} s`)
   }
   // A fresh process per run, so the peak memory is the processing's own and not the generator's.
-  for (const [label, extra] of [['streamed from disk', []], ['from one stored buffer, as the background job reads an upload', ['--stored']]] as const) {
+  for (const [label, extra] of [['streamed from disk', []], ['streamed from the upload store, as the background job reads an upload', ['--stored']]] as const) {
     const child = spawnSync(process.execPath, [...process.execArgv, fileURLToPath(import.meta.url), '--measure', ...extra], { cwd: ROOT, encoding: 'utf8' })
     if (child.status !== 0) {
       console.error(child.stderr)

@@ -12,6 +12,7 @@ import {
 import { BadInputError, InvalidStateError, NotFoundError, UnavailableError } from '#server/domain/errors'
 import { previewLoggerCsv } from '#server/domain/logger/logger-preview'
 import { processLoggerCsv } from '#server/domain/logger/logger-processor'
+import { openStoredStream, type StoredStream } from '#server/utils/upload-storage'
 import { AddReadingsSchema } from '#shared/schemas/cases'
 import type { LoggerAcceptInput, LoggerProcessInput } from '#shared/schemas/logger-files'
 import type { CaseDto } from '#shared/types/cases'
@@ -23,7 +24,6 @@ import type { Actor } from './types'
 
 /** How much of the head of a file the mapping step checks before queueing the whole analysis. */
 const HEAD_BYTES = 256 * 1024
-const SLICE_BYTES = 64 * 1024
 
 /** The first `HEAD_BYTES` of the file, cut after its last whole line. */
 function headOf(bytes: Buffer): Buffer {
@@ -33,23 +33,34 @@ function headOf(bytes: Buffer): Buffer {
 }
 
 /**
- * The bytes as a stream of slices, so the parser never holds more than one slice of text at a time.
- * The analysis runs in a web process: every few slices it lets the process answer other requests and
- * its database pool's timers, which a tight loop over a buffer in memory would starve.
+ * A stored file's chunks, passed on as they come. The analysis runs in a web process: every few chunks
+ * it lets the process answer other requests and its database pool's timers, which a tight parse of
+ * chunks that are already at hand would starve.
  */
-function sliced(bytes: Buffer): Readable {
+function yielding(input: Readable): Readable {
   return Readable.from((async function* () {
-    for (let i = 0, n = 0; i < bytes.length; i += SLICE_BYTES, n++) {
-      yield bytes.subarray(i, i + SLICE_BYTES)
-      if (n % 8 === 7) await new Promise((resolve) => setImmediate(resolve))
+    let n = 0
+    for await (const chunk of input) {
+      yield chunk as Buffer
+      if (n++ % 8 === 7) await new Promise((resolve) => setImmediate(resolve))
     }
   })())
 }
 
-async function readStored(key: string): Promise<Buffer> {
-  const raw = await useStorage('uploads').getItemRaw<ArrayBuffer | Uint8Array>(key)
-  if (!raw) throw new NotFoundError('The stored logger file is missing; upload it again.')
-  return Buffer.isBuffer(raw) ? raw : Buffer.from(raw instanceof Uint8Array ? raw : new Uint8Array(raw))
+/** The stored file as a stream (read from the store a chunk at a time, never whole), or 404 when it is gone. */
+async function openStored(key: string, end?: number): Promise<StoredStream> {
+  const config = useRuntimeConfig()
+  const opened = await openStoredStream({ uploadDriver: config.uploadDriver, uploadDir: config.uploadDir, s3: config.s3 }, key, end)
+  if (!opened) throw new NotFoundError('The stored logger file is missing; upload it again.')
+  return opened
+}
+
+/** The head of a stored file (HEAD_BYTES at most, cut after its last whole line), read without the rest. */
+async function storedHead(key: string): Promise<Buffer> {
+  const { stream } = await openStored(key, HEAD_BYTES + 1)
+  const chunks: Buffer[] = []
+  for await (const chunk of stream) chunks.push(chunk as Buffer)
+  return headOf(Buffer.concat(chunks))
 }
 
 async function dto(record: LoggerFileRecord): Promise<LoggerFileDto> {
@@ -107,7 +118,7 @@ function rowErrors(analysis: LoggerAnalysis): string[] {
 
 interface LoggerJobData { loggerFileId: number }
 
-/** The analysis of one logger file, streamed from storage with its progress reported. */
+/** The analysis of one logger file, streamed from the file store chunk by chunk with its progress reported. */
 export const loggerAnalysisJob = defineJob<LoggerJobData, { loggerFileId: number; status: LoggerAnalysis['status']; rows: number; errors: number }>('logger-analysis', {
   retryLimit: 1,
   retryDelaySeconds: 10,
@@ -115,11 +126,11 @@ export const loggerAnalysisJob = defineJob<LoggerJobData, { loggerFileId: number
   run: async (data, job) => {
     const record = await findLoggerFile(job.organisationId, data.loggerFileId)
     if (!record || !record.mapping) throw new Error('The logger file or its mapping is gone')
-    const bytes = await readStored(record.storageKey)
     const unitId = await caseUnitId(job.organisationId, record.caseId)
     const unit = unitId ? await findUnit(job.organisationId, unitId) : null
-    const analysis = await processLoggerCsv(sliced(bytes), record.mapping, {
-      totalBytes: bytes.length,
+    const stored = await openStored(record.storageKey)
+    const analysis = await processLoggerCsv(yielding(stored.stream), record.mapping, {
+      totalBytes: stored.size,
       // Progress is shown, not needed: a write that fails (a busy pool) must not fail the analysis.
       onProgress: (p) => void job.progress((p.fraction ?? 0) * 0.98).catch(() => undefined),
       ...(unit?.design.cabinetC != null ? { unitSetpointC: unit.design.cabinetC } : {}),
@@ -136,8 +147,7 @@ export const loggerAnalysisJob = defineJob<LoggerJobData, { loggerFileId: number
  */
 export async function processLoggerFile(actor: Actor, input: { loggerFileId: number } & LoggerProcessInput): Promise<LoggerJobDto> {
   const record = await fileOf(actor, input.loggerFileId)
-  const bytes = await readStored(record.storageKey)
-  const head = await processLoggerCsv(Readable.from([headOf(bytes)]), input.mapping)
+  const head = await processLoggerCsv(Readable.from([await storedHead(record.storageKey)]), input.mapping)
   if (head.status === 'failed') {
     const lines = rowErrors(head)
     const message = `${record.originalName} cannot be read with this mapping: ${head.failure ?? 'too many rows with errors'}${lines.length ? ` ${lines[0]}` : ''}`
