@@ -1,7 +1,7 @@
 import imageCompression from 'browser-image-compression'
+import { PHOTO_MAX_EDGE_PX } from '#shared/utils/uploads'
 
-/** Longest edge a photo keeps: a nameplate or a brazed joint stays sharp, the upload stays small. */
-export const PHOTO_MAX_EDGE_PX = 2560
+export { PHOTO_MAX_EDGE_PX }
 /** Size a shrunk photo aims at, in MB. */
 export const PHOTO_TARGET_MB = 1.5
 
@@ -18,7 +18,7 @@ export function shrunkName(name: string, type: string): string {
  * A phone photo made fit to send over a weak connection: at most PHOTO_MAX_EDGE_PX on its long edge
  * and about PHOTO_TARGET_MB, turned the right way up, its location and other metadata dropped. Runs
  * in the page itself (no worker script fetched from elsewhere). PDFs, files the browser cannot
- * decode, and photos already smaller than what shrinking gives are returned unchanged; the server
+ * decode (HEIC in most browsers: the server converts those), and photos already smaller than what shrinking gives are returned unchanged; the server
  * still checks whatever is sent.
  */
 export async function shrinkPhoto(file: File): Promise<File> {

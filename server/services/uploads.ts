@@ -3,16 +3,17 @@
 // organisation that owns them.
 import { randomUUID } from 'node:crypto'
 import { fileTypeFromBuffer } from 'file-type'
+import decodeHeic from 'heic-decode'
 import sharp from 'sharp'
 import { readCaseState } from '#server/db/repositories/case-records'
 import { appendEvents } from '#server/db/repositories/case-writes'
 import { findUploadFile, insertUpload } from '#server/db/repositories/uploads'
 import { InvalidStateError, NotFoundError, UnavailableError } from '#server/domain/errors'
-import { assertCaseTakesUploads, checkUpload, cleanFileName, purposeFor } from '#server/domain/uploads/upload-rules'
+import { assertCaseTakesUploads, checkSize, checkUpload, cleanFileName, convertedName, purposeFor } from '#server/domain/uploads/upload-rules'
 import type { UploadDto } from '#shared/types/uploads'
 import type { ServedFile } from '#server/utils/file-response'
 import type { UploadForm } from '#server/utils/uploads'
-import type { UploadMime, UploadPurpose } from '#shared/utils/uploads'
+import { PHOTO_MAX_EDGE_PX, isConvertedMime, type UploadMime, type UploadPurpose } from '#shared/utils/uploads'
 import { getCase } from './cases'
 import { getUnit } from './equipment'
 import type { Actor } from './types'
@@ -42,15 +43,39 @@ async function thumbnailOf(bytes: Buffer): Promise<Buffer> {
   }
 }
 
+/**
+ * An iPhone's HEIC/HEIF photo as a JPEG the app, the PDF report and every browser can show: decoded
+ * with libheif (heic-decode, WebAssembly, nothing fetched), turned the right way up by the file's own
+ * rotation, at most PHOTO_MAX_EDGE_PX on its long edge, metadata (location) dropped.
+ */
+async function heifToJpeg(bytes: Buffer): Promise<Buffer> {
+  let image: { width: number; height: number; data: Uint8ClampedArray }
+  try {
+    image = await decodeHeic({ buffer: bytes })
+  } catch {
+    throw new InvalidStateError('The HEIC photo could not be read; it may be damaged or cut short. Take or export it again.')
+  }
+  if (image.width * image.height > MAX_INPUT_PIXELS) throw new InvalidStateError('The HEIC photo is larger than any camera takes; export it smaller.')
+  return sharp(Buffer.from(image.data.buffer, image.data.byteOffset, image.data.byteLength), { raw: { width: image.width, height: image.height, channels: 4 } })
+    .resize({ width: PHOTO_MAX_EDGE_PX, height: PHOTO_MAX_EDGE_PX, fit: 'inside', withoutEnlargement: true })
+    .jpeg({ quality: 85 })
+    .toBuffer()
+}
+
 async function prepare(form: UploadForm): Promise<PreparedUpload> {
-  const detected = form.bytes.length ? (await fileTypeFromBuffer(form.bytes))?.mime : undefined
-  const mime = checkUpload(form.bytes.length, detected)
+  const sniffed = form.bytes.length ? (await fileTypeFromBuffer(form.bytes))?.mime : undefined
+  // HEIC/HEIF, known by its bytes (never by the name), is stored as the JPEG made of it.
+  const heif = isConvertedMime(sniffed)
+  if (heif) checkSize(form.bytes.length)
+  const bytes = heif ? await heifToJpeg(form.bytes) : form.bytes
+  const detected = heif ? (await fileTypeFromBuffer(bytes))?.mime : sniffed
+  const mime = checkUpload(bytes.length, detected)
   return {
     mime,
-    bytes: form.bytes,
-    name: cleanFileName(form.name, mime),
+    bytes,
+    name: cleanFileName(heif ? convertedName(form.name) : form.name, mime),
     purpose: purposeFor(mime, form.purpose),
-    thumb: mime === 'application/pdf' ? null : await thumbnailOf(form.bytes),
+    thumb: mime === 'application/pdf' ? null : await thumbnailOf(bytes),
   }
 }
 

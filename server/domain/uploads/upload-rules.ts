@@ -12,13 +12,23 @@ export const TOO_LARGE_MESSAGE = `The file is larger than the ${UPLOAD_MAX_TEXT}
  * ignored on purpose: a renamed text file must not pass as a photo.
  */
 export function checkUpload(size: number, detectedMime: string | undefined, maxBytes = UPLOAD_MAX_BYTES): UploadMime {
-  if (size === 0) throw new BadInputError('The file is empty. Choose the photo or PDF again.')
-  if (size > maxBytes) throw new TooLargeError(TOO_LARGE_MESSAGE)
+  checkSize(size, maxBytes)
   if (!isUploadMime(detectedMime)) {
     const seen = detectedMime ? `looks like ${detectedMime}` : 'is not a recognised photo or PDF'
-    throw new UnsupportedTypeError(`This file ${seen}. Allowed: ${UPLOAD_TYPES_TEXT} (image/jpeg, image/png, image/webp, application/pdf).`)
+    throw new UnsupportedTypeError(`This file ${seen}. Allowed: ${UPLOAD_TYPES_TEXT} (image/jpeg, image/png, image/webp, image/heic, application/pdf).`)
   }
   return detectedMime
+}
+
+/** Refuses an empty file or one over the limit, whatever its type. */
+export function checkSize(size: number, maxBytes = UPLOAD_MAX_BYTES): void {
+  if (size === 0) throw new BadInputError('The file is empty. Choose the photo or PDF again.')
+  if (size > maxBytes) throw new TooLargeError(TOO_LARGE_MESSAGE)
+}
+
+/** The name a converted photo (an iPhone's IMG_0042.HEIC) is kept under: the same name as a JPEG. */
+export function convertedName(name: string): string {
+  return name.replace(/\.(heic|heif|hif)$/i, '') + '.jpg'
 }
 
 /** Photos and PDFs go on open cases only: a closed record stays as it was signed off. */

@@ -1,6 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest'
 import { ApiClient, DEMO, signedIn } from '../helpers'
-import { SAMPLE_PDF, closeCase, fileForm, openCase, samplePng } from './fixtures'
+import sharp from 'sharp'
+import { SAMPLE_HEIC, SAMPLE_PDF, closeCase, fileForm, openCase, samplePng } from './fixtures'
 
 let tech: ApiClient
 let other: ApiClient
@@ -56,8 +57,8 @@ describe('uploading to a case', () => {
   it('judges the type by the content, not the name or the declared type', async () => {
     const res = await tech.post(`/api/cases/${caseId}/uploads`, fileForm(Buffer.from('just some text, not a photo\n'), 'photo.jpg', 'image/jpeg'))
     expect(res.status).toBe(415)
-    expect(res.body.message).toMatch(/JPEG, PNG, WebP or PDF/)
-    expect(res.body.message).toMatch(/image\/jpeg, image\/png, image\/webp, application\/pdf/)
+    expect(res.body.message).toMatch(/JPEG, PNG, WebP, HEIC or PDF/)
+    expect(res.body.message).toMatch(/image\/jpeg, image\/png, image\/webp, image\/heic, application\/pdf/)
     const html = await tech.post(`/api/cases/${caseId}/uploads`, fileForm(Buffer.from('<html><script>alert(1)</script></html>'), 'report.pdf', 'application/pdf'))
     expect(html.status).toBe(415)
   })
@@ -85,6 +86,35 @@ describe('uploading to a case', () => {
     const badPurpose = await tech.post(`/api/cases/${caseId}/uploads`, fileForm(png, 'a.png', 'image/png', 'selfie'))
     expect(badPurpose.status).toBe(400)
     expect(badPurpose.body.message).toMatch(/purpose/i)
+  })
+
+  it('takes an iPhone HEIC photo, known by its bytes, and stores it as a JPEG the right way round', async () => {
+    // Declared as a generic file, as many phones send it: only the bytes say it is HEIC.
+    const res = await tech.post(`/api/cases/${caseId}/uploads`, fileForm(SAMPLE_HEIC, 'IMG_0042.HEIC', 'application/octet-stream'))
+    expect(res.status).toBe(201)
+    expect(res.body).toMatchObject({ mime: 'image/jpeg', originalName: 'IMG_0042.jpg', purpose: 'photo' })
+    const file = await tech.raw(res.body.url)
+    expect(file.headers.get('content-type')).toBe('image/jpeg')
+    const jpeg = Buffer.from(await file.arrayBuffer())
+    const { data, info } = await sharp(jpeg).raw().toBuffer({ resolveWithObject: true })
+    expect([info.width, info.height]).toEqual([320, 200])
+    const px = (x: number, y: number) => Array.from(data.subarray((y * info.width + x) * info.channels, (y * info.width + x) * info.channels + 3))
+    // The drawing's colours survive the conversion (within JPEG and HEVC loss): red corner #dc2626, white disc, teal #0e7490 ground.
+    const near = (got: number[], want: number[]) => got.every((v, i) => Math.abs(v - want[i]!) <= 24)
+    expect(near(px(10, 10), [0xdc, 0x26, 0x26]), `corner ${px(10, 10)}`).toBe(true)
+    expect(near(px(160, 100), [0xf8, 0xfa, 0xfc]), `centre ${px(160, 100)}`).toBe(true)
+    expect(near(px(300, 180), [0x0e, 0x74, 0x90]), `ground ${px(300, 180)}`).toBe(true)
+    const thumb = await tech.raw(res.body.thumbUrl)
+    expect(thumb.status).toBe(200)
+  })
+
+  it('refuses a file named .heic that is not one (415) and a HEIC cut short (422)', async () => {
+    const fake = await tech.post(`/api/cases/${caseId}/uploads`, fileForm(Buffer.from('just some text, not a photo'), 'IMG_0043.heic', 'image/heic'))
+    expect(fake.status).toBe(415)
+    expect(fake.body.message).toMatch(/HEIC/)
+    const cut = await tech.post(`/api/cases/${caseId}/uploads`, fileForm(SAMPLE_HEIC.subarray(0, 600), 'IMG_0044.HEIC', 'image/heic'))
+    expect(cut.status).toBe(422)
+    expect(cut.body.message).toMatch(/HEIC photo could not be read/)
   })
 
   it('answers 422 for an image that starts right but cannot be decoded', async () => {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { BadInputError, ConflictError, TooLargeError, UnsupportedTypeError } from '#server/domain/errors'
-import { assertCaseTakesUploads, checkUpload, cleanFileName, purposeFor } from '#server/domain/uploads/upload-rules'
+import { assertCaseTakesUploads, checkUpload, cleanFileName, convertedName, purposeFor } from '#server/domain/uploads/upload-rules'
 import { UPLOAD_MAX_BYTES } from '#shared/utils/uploads'
 
 describe('checkUpload', () => {
@@ -14,12 +14,19 @@ describe('checkUpload', () => {
     expect(() => checkUpload(UPLOAD_MAX_BYTES + 1, 'image/png')).toThrow(TooLargeError)
     expect(() => checkUpload(UPLOAD_MAX_BYTES + 1, 'image/png')).toThrow(/25 MB/)
     expect(() => checkUpload(10, 'image/gif')).toThrow(UnsupportedTypeError)
-    expect(() => checkUpload(10, 'image/gif')).toThrow(/looks like image\/gif.*JPEG, PNG, WebP or PDF/)
+    expect(() => checkUpload(10, 'image/gif')).toThrow(/looks like image\/gif.*JPEG, PNG, WebP, HEIC or PDF/)
     expect(() => checkUpload(10, undefined)).toThrow(/not a recognised photo or PDF/)
   })
 })
 
 describe('file names and purposes', () => {
+  it('names a converted HEIC/HEIF photo as the JPEG it became', () => {
+    expect(convertedName('IMG_0042.HEIC')).toBe('IMG_0042.jpg')
+    expect(convertedName('nameplate.heif')).toBe('nameplate.jpg')
+    // A HEIC recognised by its bytes under another name keeps that name, with .jpg added.
+    expect(convertedName('photo')).toBe('photo.jpg')
+  })
+
   it('keeps a readable name without paths, control or quote characters', () => {
     expect(cleanFileName('C:\\Users\\x\\Desktop\\coil.JPG', 'image/jpeg')).toBe('coil.JPG')
     expect(cleanFileName('../../etc/passwd', 'application/pdf')).toBe('passwd')
