@@ -1,5 +1,11 @@
-// Readiness probe for start scripts and tests; says nothing about any organisation.
-export default defineApiHandler(async () => {
-  const [rows] = await useDb().query('SELECT 1 AS ok')
-  return { status: 'ok', db: (rows as { ok: number }[])[0]?.ok === 1 }
+// Readiness probe for start scripts, tests and load balancers: 200 when the database answers, 503
+// with the reason otherwise. Says nothing about any organisation.
+import { checkHealth } from '#server/services/health'
+
+export default defineApiHandler(async (event) => {
+  const health = await checkHealth()
+  if (health.ok) return { status: 'ok', db: true }
+  setResponseStatus(event, 503, 'Service Unavailable')
+  setResponseHeader(event, 'retry-after', 5)
+  return { status: 'unavailable', reason: health.reason, db: false }
 })

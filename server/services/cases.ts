@@ -7,6 +7,7 @@ import type { CacheStamps } from '#server/db/repositories/cache-stamps'
 import { caseUnitId, findCase, findCases, readCaseState, type LockedCase } from '#server/db/repositories/case-records'
 import { appendEvents, commitIfUnchanged, insertCase, insertTransactions, saveCase } from '#server/db/repositories/case-writes'
 import { findUnit } from '#server/db/repositories/equipment'
+import { certainlyNotApplied, isTransientDbError, retryTransient } from '#server/db/transient'
 import {
   assertWritable, planAddendum, planClosing, planNote, planOutcomeCorrection, planReadingCorrection, planReadings, planReportPhotos, planStep, planStepStrike,
   planSymptoms, planTestResult, type CaseChange,
@@ -136,7 +137,11 @@ async function changeCaseLocked<C extends CaseChange>(
 ): Promise<CaseDto> {
   const unitId = await unitIdOfCase(actor.organisationId, caseId)
   const unit = await unitAsOf(await stampsFor(actor), unitId)
-  await useDb().transaction(async (transaction) => {
+  // A passing failure before the commit rolled everything back, so the whole transaction is tried
+  // again; a failure of the commit itself leaves its outcome unknown and is not repeated.
+  let committing = false
+  await retryTransient(() => useDb().transaction(async (transaction) => {
+    committing = false
     const current = await readCaseState(actor.organisationId, caseId, transaction)
     if (!current) throw new NotFoundError(CASE_NOT_FOUND)
     assertWritable(current, expectedVersion)
@@ -144,7 +149,8 @@ async function changeCaseLocked<C extends CaseChange>(
     const more = await alsoWrite(transaction, unit, change)
     await appendEvents(caseId, actor.id, [...change.events, ...more], transaction, now)
     await saveCase(caseId, change.changes, transaction)
-  })
+    committing = true
+  }), { retryable: (error) => isTransientDbError(error) && (!committing || certainlyNotApplied(error)) })
   return record(actor, caseId, unit)
 }
 

@@ -6,6 +6,7 @@ import {
   BadInputError, ConfirmationNeededError, ConflictError, ImplausibleInputError, FieldConflictError, FieldNotFoundError, ForbiddenError, InvalidStateError, NotFoundError, RateLimitedError, TooLargeError,
   UnauthenticatedError, UnavailableError, UnsupportedTypeError,
 } from '#server/domain/errors'
+import { isTransientDbError } from '#server/db/transient'
 import { OutOfRangeError, UnitError, UnknownRefrigerantError } from '#shared/utils/properties'
 
 type ErrorType = new (...args: never[]) => Error
@@ -47,20 +48,26 @@ function dataOf(error: Error): Record<string, unknown> | undefined {
   return undefined
 }
 
-/** The HTTP status a domain error maps to, or undefined for anything else. */
+/** Said when the database stays unreachable after the retries: the request may be sent again. */
+export const DATABASE_UNAVAILABLE = 'The database cannot be reached right now. Try again in a moment.'
+const DATABASE_RETRY_AFTER_S = 5
+
+/** The HTTP status a domain error maps to (503 for a database that stays unreachable), or undefined for anything else. */
 export function statusOf(error: unknown): number | undefined {
-  return STATUS.find(([type]) => error instanceof type)?.[1]
+  return STATUS.find(([type]) => error instanceof type)?.[1] ?? (isTransientDbError(error) ? 503 : undefined)
 }
 
 /** Response headers that go with a domain error (how long to wait after a 429). */
 export function errorHeaders(error: unknown): Record<string, string> {
   if (error instanceof RateLimitedError) return { 'retry-after': String(Math.max(1, Math.ceil(error.retryAfterS))) }
+  if (!STATUS.some(([type]) => error instanceof type) && isTransientDbError(error)) return { 'retry-after': String(DATABASE_RETRY_AFTER_S) }
   return {}
 }
 
 /** Maps a domain error to its HTTP error; anything else (an h3 error, a bug) is returned unchanged. */
 export function toHttpError(error: unknown): unknown {
   const entry = STATUS.find(([type]) => error instanceof type)
+  if (!entry && isTransientDbError(error)) return createError({ status: 503, statusText: 'Service Unavailable', message: DATABASE_UNAVAILABLE })
   if (!entry) return error
   const [, status, statusText] = entry
   const data = dataOf(error as Error)

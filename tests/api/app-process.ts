@@ -23,8 +23,11 @@ export interface AppProcess {
   stop(): Promise<void>
 }
 
-/** The built server on a free loopback port with `env` added; resolves once /api/health answers. */
-export async function startApp(env: Record<string, string> = {}): Promise<AppProcess> {
+/**
+ * The built server on a free loopback port with `env` added; resolves once /api/health answers
+ * with `readyStatus` (503 for a server started on a database that is down).
+ */
+export async function startApp(env: Record<string, string> = {}, readyStatus = 200): Promise<AppProcess> {
   const port = await freePort()
   const child = spawn(process.execPath, ['.output/server/index.mjs'], {
     cwd: ROOT,
@@ -49,7 +52,7 @@ export async function startApp(env: Record<string, string> = {}): Promise<AppPro
   }
   for (let i = 0; i < 150; i++) {
     try {
-      if ((await fetch(`${baseUrl}/api/health`)).status === 200) return { baseUrl, child, stop }
+      if ((await fetch(`${baseUrl}/api/health`)).status === readyStatus) return { baseUrl, child, stop }
     } catch {
       // not listening yet
     }

@@ -7,6 +7,7 @@ import type { CaseFieldChanges } from '#server/domain/cases/case-changes'
 import type { NewEvent } from '#server/domain/cases/case-record'
 import { CaseEvent, RefrigerantTransaction, ServiceCase } from '../models'
 import { linkCylinders } from './refrigerant-log'
+import { certainlyNotApplied, retryTransient } from '../transient'
 
 /** Opens a case on a unit of the organisation; returns its id. */
 export async function insertCase(
@@ -60,6 +61,11 @@ function setClauses(changes: CaseFieldChanges, bind: unknown[]): string {
 /**
  * Saves a change and appends its events in one statement, only if the case is still open and at
  * `lockVersion` (optimistic concurrency). Returns false when someone changed it first.
+ *
+ * A passing database failure (a dropped connection, a restart, a serialization failure) is retried
+ * with a short, bounded backoff. When the statement was cut while it ran, its outcome is unknown:
+ * before trying again the case is read, and a version that moved on with this change's first
+ * event in the timeline means it did land, so it is never written twice.
  */
 export async function commitIfUnchanged(
   id: number, lockVersion: number, changes: CaseFieldChanges, byUserId: number | null, events: NewEvent[], at: Date,
@@ -72,14 +78,44 @@ export async function commitIfUnchanged(
     const n = bind.length
     return `($${n - 3}::int, $${n - 2}::text, $${n - 1}::jsonb, $${n}::timestamptz)`
   })
-  const [inserted] = await ServiceCase.sequelize!.query(
-    `WITH upd AS (UPDATE cases SET ${sets} WHERE id = $1 AND lock_version = $2 AND status = 'open' RETURNING id)
-     INSERT INTO case_events (case_id, by_user_id, type, payload, at)
-     SELECT upd.id, v.by_user_id, v.type, v.payload, v.at FROM upd, (VALUES ${rows.join(', ')}) AS v(by_user_id, type, payload, at)
-     RETURNING case_events.id`,
-    { bind },
+  let outcomeUnknown = false
+  return retryTransient(async () => {
+    if (outcomeUnknown) {
+      const landed = await landedBefore(id, lockVersion, byUserId, events[0]!, at)
+      if (landed !== undefined) return landed
+    }
+    try {
+      const [inserted] = await ServiceCase.sequelize!.query(
+        `WITH upd AS (UPDATE cases SET ${sets} WHERE id = $1 AND lock_version = $2 AND status = 'open' RETURNING id)
+         INSERT INTO case_events (case_id, by_user_id, type, payload, at)
+         SELECT upd.id, v.by_user_id, v.type, v.payload, v.at FROM upd, (VALUES ${rows.join(', ')}) AS v(by_user_id, type, payload, at)
+         RETURNING case_events.id`,
+        { bind },
+      )
+      return (inserted as unknown[]).length > 0
+    } catch (error) {
+      outcomeUnknown ||= !certainlyNotApplied(error)
+      throw error
+    }
+  })
+}
+
+/**
+ * After a commit whose outcome is unknown: undefined when the case is still at `lockVersion` (it did
+ * not land, try again); true when the version moved and the change's first event is in the
+ * timeline (it landed); false when someone else's change moved it (plan again on the fresh state).
+ */
+async function landedBefore(id: number, lockVersion: number, byUserId: number | null, first: NewEvent, at: Date): Promise<boolean | undefined> {
+  const [rows] = await ServiceCase.sequelize!.query(
+    `SELECT c.lock_version AS version,
+            EXISTS (SELECT 1 FROM case_events e WHERE e.case_id = c.id AND e.type = $2 AND e.payload = $3::jsonb AND e.at = $4
+                    AND e.by_user_id IS NOT DISTINCT FROM $5::int) AS landed
+       FROM cases c WHERE c.id = $1`,
+    { bind: [id, first.type, JSON.stringify(first.payload), at, byUserId] },
   )
-  return (inserted as unknown[]).length > 0
+  const row = (rows as { version: number; landed: boolean }[])[0]
+  if (!row || row.version === lockVersion) return undefined
+  return row.landed
 }
 
 /** Records refrigerant added to or recovered from a unit's stages. */
