@@ -1,6 +1,7 @@
 #!/usr/bin/env node
 // `npm start`: installs what is missing, starts PostgreSQL (embedded under .data/postgres unless
-// DATABASE_URL is set), migrates, seeds the demo, builds and serves Rimecase on 127.0.0.1.
+// DATABASE_URL is set; it is watched and started again if it dies), migrates, seeds the demo,
+// builds and serves Rimecase on 127.0.0.1. Ctrl-C stops the app and PostgreSQL.
 // Only Node built-ins are imported at the top: packages may not be installed yet.
 import { existsSync, mkdirSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
@@ -33,7 +34,7 @@ async function database(env) {
     return url
   }
   const bin = ensurePostgresBinaries()
-  const { startCluster } = await import('./lib/postgres.mjs')
+  const { startCluster, watchCluster } = await import('./lib/postgres.mjs')
   const dataDir = join(ROOT, '.data', 'postgres')
   mkdirSync(join(ROOT, '.data'), { recursive: true })
   const stateFile = join(dataDir, 'rimecase-cluster.json')
@@ -42,6 +43,10 @@ async function database(env) {
   const port = running || !(await portInUse(savedPort)) ? savedPort : await freePort()
   const cluster = await startCluster({ bin, dataDir, port })
   cleanups.push(() => cluster.stop())
+  // If PostgreSQL dies while the app runs, it is started again; the app's requests answer 503 in
+  // the meantime and its pool reconnects by itself. Ctrl-C ends the watch before the stop.
+  const unwatch = watchCluster(cluster, { shouldRestart: () => !stopping, log: (message) => console.error(`[postgres] ${new Date().toISOString()} ${message}`) })
+  cleanups.push(() => unwatch())
   return cluster.url
 }
 

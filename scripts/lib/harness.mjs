@@ -6,7 +6,7 @@ import { join } from 'node:path'
 import { ensurePostgresBinaries, freePort, startChild, stopChild, waitForHttp } from './system.mjs'
 import { migrateAndSeed } from './project.mjs'
 
-/** Starts PostgreSQL (migrated and seeded); returns { tmp, databaseUrl, stop }. */
+/** Starts PostgreSQL (migrated and seeded); returns { tmp, databaseUrl, cluster, stop } (cluster: see startCluster). */
 export async function startDatabase(prefix = 'rimecase-') {
   const pgBin = ensurePostgresBinaries()
   const tmp = mkdtempSync(`/tmp/${prefix}`)
@@ -23,6 +23,7 @@ export async function startDatabase(prefix = 'rimecase-') {
   return {
     tmp,
     databaseUrl: cluster.url,
+    cluster,
     stop: () => {
       cluster.stop()
       rmSync(tmp, { recursive: true, force: true })
