@@ -16,21 +16,28 @@ function run(cmd, args, env = {}) {
   })
 }
 
+// RIMECASE_BENCH_ONLY=impact runs only the impact replay on its throwaway stack.
+const impactOnly = process.env.RIMECASE_BENCH_ONLY === 'impact'
 ensureNodeModules()
 const chromium = ensureChromium()
-step('Refrigerant properties (in-process)')
-await run(bin('tsx'), ['--tsconfig', 'tsconfig.scripts.json', 'scripts/bench-properties.ts'])
-step('Diagnosis engine (in-process)')
-await run(bin('tsx'), ['--tsconfig', 'tsconfig.scripts.json', 'scripts/bench-diagnosis.ts'])
-step('Data-logger CSV, 50 MB / 1 million rows, streaming (in-process)')
-await run(bin('tsx'), ['--tsconfig', 'tsconfig.scripts.json', 'scripts/bench-logger.ts'])
-step('HTTP and browser (throwaway stack on loopback)')
+if (!impactOnly) {
+  step('Refrigerant properties (in-process)')
+  await run(bin('tsx'), ['--tsconfig', 'tsconfig.scripts.json', 'scripts/bench-properties.ts'])
+  step('Diagnosis engine (in-process)')
+  await run(bin('tsx'), ['--tsconfig', 'tsconfig.scripts.json', 'scripts/bench-diagnosis.ts'])
+  step('Data-logger CSV, 50 MB / 1 million rows, streaming (in-process)')
+  await run(bin('tsx'), ['--tsconfig', 'tsconfig.scripts.json', 'scripts/bench-logger.ts'])
+  step('HTTP and browser (throwaway stack on loopback)')
+}
 const db = await startDatabase('rimecase-bench-')
 let server
 try {
   buildIfStale()
   server = await startServer(db)
-  await run(process.execPath, ['scripts/bench-http.mjs'], { RIMECASE_BENCH_BASE_URL: server.baseUrl, CHROMIUM_PATH: chromium })
+  if (!impactOnly) await run(process.execPath, ['scripts/bench-http.mjs'], { RIMECASE_BENCH_BASE_URL: server.baseUrl, CHROMIUM_PATH: chromium })
+  // Last: it adds a generated history of closed cases to the demo organisation.
+  step('Impact of a draft on 10,000 generated past cases: the job POST /api/knowledge-base/versions/{id}/impact starts')
+  await run(bin('tsx'), ['--tsconfig', 'tsconfig.scripts.json', 'scripts/bench-impact.ts'], { RIMECASE_BENCH_BASE_URL: server.baseUrl, DATABASE_URL: db.databaseUrl })
 } finally {
   await server?.stop()
   db.stop()

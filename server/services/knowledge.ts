@@ -3,16 +3,17 @@
 // log in the transaction that makes it.
 import { findUnits } from '#server/db/repositories/equipment'
 import {
-  closedCasesWithConfirmedCauses, findVersion, insertAudit, insertKnowledgeBaseVersion, listVersions, loadVersionContent, loadVersionExamples,
+  closedCasesWithConfirmedCauses, countClosedCasesWithConfirmedCauses, findVersion, latestAccuracyJob, insertAudit, insertKnowledgeBaseVersion, listVersions, loadVersionContent, loadVersionExamples,
   type KbVersionListRow,
 } from '#server/db/repositories/knowledge'
 import { toBundle, type KnowledgeBaseBundle } from '#server/domain/knowledge/bundle'
 import { impactOf, type ReplayedCase } from '#server/domain/knowledge/impact'
-import { rankStoredCaseCauses } from '#server/domain/knowledge/replay'
+import { orderStoredCaseCauses } from '#server/domain/knowledge/replay'
 import { NotFoundError } from '#server/domain/errors'
 import type { KnowledgeBase } from '#server/domain/diagnosis/knowledge-base'
-import type { RankedCause } from '#shared/types/diagnosis'
-import type { ImpactJobDto, ImpactResult, ImportedBundleDto, KbVersionDto } from '#shared/types/knowledge'
+import type { OrderedCause } from '#server/domain/diagnosis/rank'
+import type { ImpactJobDto, ImpactResult, ImportedBundleDto, KbVersionDto, PublishedAccuracyDto } from '#shared/types/knowledge'
+import type { KbAccuracyDto } from '#shared/types/training'
 import { defineJob, enqueueJob } from './jobs'
 import { knowledgeBaseVersion, publishedVersionId } from './replay'
 import type { Actor } from './types'
@@ -65,31 +66,48 @@ export async function importBundle(actor: Actor, bundle: KnowledgeBaseBundle, no
 
 // ------------------------------------------------------------------ impact on past cases
 
-const top = (causes: RankedCause[]) => causes.slice(0, 3).map((c) => (c.stage ? { cause: c.cause, stage: c.stage } : { cause: c.cause }))
+const top = (causes: OrderedCause[]) => causes.slice(0, 3).map((c) => (c.stage ? { cause: c.cause, stage: c.stage } : { cause: c.cause }))
+
+/** Cases read from the database at a time; the next batch is read while this one is ranked. */
+export const IMPACT_BATCH = 1000
+
+const PROGRESS_EVERY = 250
+const YIELD_EVERY = 25
+const nextTurn = () => new Promise<void>((resolve) => setImmediate(resolve))
 
 /**
  * Ranks every closed case of the organisation with confirmed causes with the candidate and the
- * published version (each unit's equipment class sets the starting odds; learned priors are left
- * out so that both versions start alike) and compares them. `progress` is told how far it got.
+ * published version and compares them. Both rank with the knowledge base's default starting odds for
+ * each unit's equipment class: the organisation's learned odds are left out, so that the two
+ * versions start alike. Cases are read in batches (the next one while this one is ranked), each
+ * version's rule set is prepared once, and the figures count only the first three causes of each
+ * side. `progress` is told how far it got.
  */
 export async function computeImpact(organisationId: number, versionId: number, progress: (fraction: number) => Promise<void> = async () => {}): Promise<ImpactResult> {
   const publishedId = await publishedVersionId(organisationId)
   const candidate = await knowledgeBaseVersion(organisationId, versionId)
   const published = publishedId === null ? null : await knowledgeBaseVersion(organisationId, publishedId)
-  const [cases, units] = await Promise.all([closedCasesWithConfirmedCauses(organisationId), findUnits(organisationId)])
+  const [total, units] = await Promise.all([countClosedCasesWithConfirmedCauses(organisationId), findUnits(organisationId)])
   const unitById = new Map(units.map((u) => [u.id, u]))
   const kbs: KnowledgeBase[] = published && published !== candidate ? [candidate, published] : [candidate]
   const replayed: ReplayedCase[] = []
-  for (let i = 0; i < cases.length; i++) {
-    const c = cases[i]!
-    const unit = unitById.get(c.unitId)
-    let rankings: RankedCause[][] = []
-    // A case that no longer ranks (its unit gone, a test result the version cannot read) counts as a miss on both sides.
-    if (unit) rankings = await rankStoredCaseCauses(kbs, unit, c).catch(() => [])
-    const cand = top(rankings[0] ?? [])
-    const pub = published ? (kbs.length === 2 ? top(rankings[1] ?? []) : cand) : []
-    replayed.push({ caseId: c.id, confirmed: c.confirmedCauses, candidate: cand, published: pub })
-    if (i % 250 === 249) await progress((i + 1) / cases.length)
+  const read = (afterId: number) => closedCasesWithConfirmedCauses(organisationId, { afterId, limit: IMPACT_BATCH })
+  let batch = await read(0)
+  while (batch.length) {
+    const following = batch.length === IMPACT_BATCH ? read(batch[batch.length - 1]!.id) : Promise.resolve([])
+    for (const c of batch) {
+      const unit = unitById.get(c.unitId)
+      let orders: OrderedCause[][] = []
+      // A case that no longer ranks (its unit gone, a test result the version cannot read) counts as a miss on both sides.
+      if (unit) orders = await orderStoredCaseCauses(kbs, unit, c).catch(() => [])
+      const cand = top(orders[0] ?? [])
+      const pub = published ? (kbs.length === 2 ? top(orders[1] ?? []) : cand) : []
+      replayed.push({ caseId: c.id, confirmed: c.confirmedCauses, candidate: cand, published: pub })
+      // Now and then the server answers its other requests, and the page hears how far it got.
+      if (replayed.length % YIELD_EVERY === 0) await nextTurn()
+      if (replayed.length % PROGRESS_EVERY === 0) await progress(total ? Math.min(1, replayed.length / total) : 1)
+    }
+    batch = await following
   }
   return { ...impactOf(replayed), candidateVersionId: versionId, publishedVersionId: publishedId }
 }
@@ -107,4 +125,25 @@ export async function startImpact(actor: Actor, input: { versionId: number }): P
   if (!version) throw new NotFoundError('Knowledge-base version not found')
   const jobId = await enqueueJob(impactJob, { versionId: version.id }, { organisationId: actor.organisationId, createdBy: actor.id })
   return { jobId }
+}
+
+/**
+ * `GET /api/knowledge-base/accuracy`: the published version's top-1 and top-3 as last measured (an
+ * impact replay that ranked with it, or the accuracy report made with it); null when it has not been
+ * measured since it was published.
+ */
+export async function publishedAccuracy(actor: Actor): Promise<PublishedAccuracyDto | null> {
+  const versionId = await publishedVersionId(actor.organisationId)
+  if (versionId === null) return null
+  const job = await latestAccuracyJob(actor.organisationId, versionId)
+  if (!job) return null
+  const measuredAt = job.finishedAt.toISOString()
+  if (job.kind === 'kb-accuracy') {
+    // The report counts cases; the home shows shares.
+    const { cases, top1, top3 } = (job.result as KbAccuracyDto).overall
+    return { versionId, source: 'accuracy', cases, top1: cases ? top1 / cases : 0, top3: cases ? top3 / cases : 0, measuredAt }
+  }
+  const impact = job.result as ImpactResult
+  const side = impact.publishedVersionId === versionId ? impact.published : impact.candidate
+  return { versionId, source: 'impact', cases: impact.cases, top1: side.top1, top3: side.top3, measuredAt }
 }

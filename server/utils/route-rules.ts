@@ -179,6 +179,7 @@ export const ROUTE_RULES = {
   'POST /api/knowledge-base/versions': { allow: 'knowledge:author' },
   'POST /api/knowledge-base/findings/validate': { allow: 'knowledge:author' },
   'GET /api/knowledge-base/audit': { allow: 'knowledge:author' },
+  'GET /api/knowledge-base/accuracy': { allow: 'knowledge:author' },
   'GET /api/knowledge-base/versions/[id]/content': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
   'GET /api/knowledge-base/versions/[id]/diff': { allow: 'knowledge:author', records: { id: 'kb-versions' } },
   'POST /api/knowledge-base/versions/[id]/check': { allow: 'knowledge:author', records: { id: 'kb-versions' }, body: 'none' },

@@ -74,6 +74,20 @@ export interface ImpactResult {
   publishedVersionId?: number | null
 }
 
+/**
+ * The published version's accuracy as last measured: by the impact replay (default starting odds,
+ * every closed case with a confirmed cause) or by the accuracy report (the organisation's learned
+ * starting odds, the most recent confirmed cases), whichever finished last for this version.
+ */
+export interface PublishedAccuracyDto {
+  versionId: number
+  source: 'impact' | 'accuracy'
+  cases: number
+  top1: number
+  top3: number
+  measuredAt: string
+}
+
 /** One worked example of a finding as "Check" ran it. */
 export interface ExampleCheckDto {
   finding: string

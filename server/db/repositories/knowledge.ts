@@ -142,13 +142,26 @@ export interface ClosedCaseFacts {
   confirmedCauses: { cause: string; stage?: string }[]
 }
 
-/** The organisation's closed cases that have at least one confirmed cause, oldest first. */
-export async function closedCasesWithConfirmedCauses(organisationId: number): Promise<ClosedCaseFacts[]> {
+const CLOSED_CONFIRMED = `organisation_id = :organisationId AND status = 'closed' AND jsonb_array_length(confirmed_causes) > 0`
+
+/** How many closed cases of the organisation have at least one confirmed cause. */
+export async function countClosedCasesWithConfirmedCauses(organisationId: number): Promise<number> {
+  const [row] = await ServiceCase.sequelize!.query<{ n: string }>(`SELECT count(*) AS n FROM cases WHERE ${CLOSED_CONFIRMED}`, {
+    replacements: { organisationId }, type: QueryTypes.SELECT,
+  })
+  return Number(row?.n ?? 0)
+}
+
+/**
+ * One batch of the organisation's closed cases that have at least one confirmed cause, in id order:
+ * the first `limit` after `afterId` (a replay reads them batch by batch, never all at once).
+ */
+export async function closedCasesWithConfirmedCauses(organisationId: number, batch: { afterId: number; limit: number }): Promise<ClosedCaseFacts[]> {
   const rows = await ServiceCase.sequelize!.query<{ id: number; unit_id: number; symptoms: Symptom[]; readings: CaseReading[]; test_results: CaseTestResult[]; confirmed_causes: ClosedCaseFacts['confirmedCauses'] }>(
     `SELECT id, unit_id, symptoms, readings, test_results, confirmed_causes FROM cases
-      WHERE organisation_id = :organisationId AND status = 'closed' AND jsonb_array_length(confirmed_causes) > 0
-      ORDER BY id`,
-    { replacements: { organisationId }, type: QueryTypes.SELECT },
+      WHERE ${CLOSED_CONFIRMED} AND id > :afterId
+      ORDER BY id LIMIT :limit`,
+    { replacements: { organisationId, afterId: batch.afterId, limit: batch.limit }, type: QueryTypes.SELECT },
   )
   return rows.map((r) => ({ id: r.id, unitId: r.unit_id, symptoms: r.symptoms, readings: r.readings, testResults: r.test_results, confirmedCauses: r.confirmed_causes }))
 }
@@ -186,4 +199,20 @@ export async function listAudit(organisationId: number, options: { versionId?: n
       details: r.details, by: r.by, byUserId: r.by_id,
     })),
   }
+}
+
+/**
+ * The latest finished measurement of a version's accuracy in the organisation: an impact replay that
+ * ranked with it (as candidate or as published) or an accuracy report made with it; null when none.
+ */
+export async function latestAccuracyJob(organisationId: number, versionId: number): Promise<{ kind: string; result: unknown; finishedAt: Date } | null> {
+  const [row] = await ServiceCase.sequelize!.query<{ kind: string; result: unknown; finished_at: Date }>(
+    `SELECT kind, result, finished_at FROM background_jobs
+      WHERE organisation_id = :organisationId AND state = 'done' AND result IS NOT NULL AND (
+        (kind = 'kb-impact' AND (result->>'publishedVersionId' = :version OR result->>'candidateVersionId' = :version))
+        OR (kind = 'kb-accuracy' AND result->'knowledgeBaseVersion'->>'id' = :version))
+      ORDER BY finished_at DESC NULLS LAST LIMIT 1`,
+    { replacements: { organisationId, version: String(versionId) }, type: QueryTypes.SELECT },
+  )
+  return row ? { kind: row.kind, result: row.result, finishedAt: new Date(row.finished_at) } : null
 }

@@ -169,19 +169,25 @@ function equalsHold(finding: PreparedFinding, facts: Facts): boolean {
 
 export async function runFindings(prepared: PreparedKnowledgeBase, facts: Facts): Promise<FindingRun> {
   const selected: Rule[] = []
-  const settled: PreparedFinding[] = []
+  const settled = new Set<PreparedFinding>()
   const waiting: FindingRun['waiting'] = []
+  // The engine is handed only the facts the selected findings read (every leaf names its fact and
+  // compares it with a constant), so it does not copy the whole fact sheet on every run.
+  const read: Facts = {}
   prepared.findings.forEach((finding, i) => {
     const missing = missingFacts(finding, facts)
     if (missing.length) waiting.push({ finding, missing })
     else if (!equalsHold(finding, facts)) return
-    else if (prepared.indexOnly[i]) settled.push(finding)
-    else if ((prepared.screens[i] as Screen)(facts)) selected.push(prepared.compiled[i] as Rule)
+    else if (prepared.indexOnly[i]) settled.add(finding)
+    else if ((prepared.screens[i] as Screen)(facts)) {
+      selected.push(prepared.compiled[i] as Rule)
+      for (const f of finding.facts) read[f] = facts[f] as FactValue
+    }
   })
-  const result = selected.length ? await prepared.engine.runSubset(facts, selected) : { events: [] }
+  const result = selected.length ? await prepared.engine.runSubset(read, selected) : { events: [] }
   const confirmed = new Set(result.events.map((e) => String(e.params?.id)))
   // Keep authoring order, whichever path decided a finding.
-  const applied = prepared.findings.filter((f) => confirmed.has(f.id) || settled.includes(f))
+  const applied = prepared.findings.filter((f) => confirmed.has(f.id) || settled.has(f))
   return { applied, waiting, evaluated: selected.length }
 }
 

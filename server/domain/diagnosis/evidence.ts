@@ -171,15 +171,38 @@ export interface Ranking {
   causes: RankedCause[]
 }
 
+/** Posterior over the hypotheses (groups weighed first); a hypothesis with prior 0 stays at 0. */
+function posteriorOf(H: number, priors: number[], contributions: Contribution[]): number[] {
+  weighGroups(contributions)
+  const logPost = new Float64Array(H)
+  for (let i = 0; i < H; i++) logPost[i] = (priors[i] as number) > 0 ? Math.log(priors[i] as number) : -Infinity
+  for (const c of contributions) for (let i = 0; i < H; i++) logPost[i] = (logPost[i] as number) + c.weight * (c.logL[i] as number)
+  return softmax(logPost)
+}
+
+/** The order rankHypotheses puts the causes in: most probable first, ties by cause and stage. */
+function byProbability(a: { cause: string; stage?: string; probability: number }, b: { cause: string; stage?: string; probability: number }): number {
+  return b.probability - a.probability || `${a.cause}@${a.stage ?? ''}`.localeCompare(`${b.cause}@${b.stage ?? ''}`)
+}
+
+/**
+ * Only the order of the live hypotheses, most likely first, exactly as rankHypotheses ranks them but
+ * without the evidence lists and their words: what replaying many stored cases needs.
+ */
+export function orderHypotheses(model: KindModel, priors: number[], contributions: Contribution[]): { cause: Hypothesis['cause']; stage?: Hypothesis['stage']; probability: number }[] {
+  const posterior = posteriorOf(model.hypotheses.length, priors, contributions)
+  const out: { cause: Hypothesis['cause']; stage?: Hypothesis['stage']; probability: number }[] = []
+  model.hypotheses.forEach((h, i) => {
+    if ((priors[i] as number) > 0) out.push(h.stage ? { cause: h.cause, stage: h.stage, probability: posterior[i] ?? 0 } : { cause: h.cause, probability: posterior[i] ?? 0 })
+  })
+  return out.sort(byProbability)
+}
+
 /** Posterior over the hypotheses, and for each the findings that moved it most, in words. */
 export function rankHypotheses(model: KindModel, causes: CauseDef[], priors: number[], contributions: Contribution[]): Ranking {
   const H = model.hypotheses.length
   const live = priors.map((p) => p > 0)
-  weighGroups(contributions)
-  const logPost = new Float64Array(H)
-  for (let i = 0; i < H; i++) logPost[i] = live[i] ? Math.log(priors[i] as number) : -Infinity
-  for (const c of contributions) for (let i = 0; i < H; i++) logPost[i] = (logPost[i] as number) + c.weight * (c.logL[i] as number)
-  const posterior = softmax(logPost)
+  const posterior = posteriorOf(H, priors, contributions)
   const titles = new Map(causes.map((c) => [c.slug, c.title]))
   const shown = contributions.filter((c) => c.weight > 0)
   const means = shown.map((c) => priorWeightedLog(c.logL, priors))
@@ -206,7 +229,7 @@ export function rankHypotheses(model: KindModel, causes: CauseDef[], priors: num
       evidenceAgainst: strongest(against),
     })
   }
-  ranked.sort((a, b) => b.probability - a.probability || `${a.cause}@${a.stage ?? ''}`.localeCompare(`${b.cause}@${b.stage ?? ''}`))
+  ranked.sort(byProbability)
   return { hypotheses: model.hypotheses, posterior, causes: ranked }
 }
 
@@ -239,11 +262,12 @@ export function findingText(f: PreparedFinding, facts: Facts): string {
   return renderText(template, facts)
 }
 
-export function findingContributions(model: KindModel, applied: PreparedFinding[], facts: Facts): Contribution[] {
+/** Each applied finding's log-likelihoods; `withText: false` leaves the words out (a replay that only orders causes). */
+export function findingContributions(model: KindModel, applied: PreparedFinding[], facts: Facts, withText = true): Contribution[] {
   const out: Contribution[] = []
   for (const f of applied) {
     const logL = findingLogLikelihoods(model, f, facts)
-    if (logL) out.push({ id: f.id, group: f.group, logL, text: findingText(f, facts), weight: 1 })
+    if (logL) out.push({ id: f.id, group: f.group, logL, text: withText ? findingText(f, facts) : '', weight: 1 })
   }
   return out
 }

@@ -4,9 +4,9 @@
  * first and maps RankInputError to a 400. Readings and test results of the repair and verification
  * phases are listed in `setAside` and never move the ranking.
  */
-import type { RankedCause, RankRequest, RankResponse, StageConfig } from '#shared/types/diagnosis'
+import type { Cause, RankRequest, RankResponse, Stage, StageConfig } from '#shared/types/diagnosis'
 import { prepareKnowledgeBase, runFindings, sharpenWith } from './engine'
-import { findingContributions, modelFor, rankHypotheses, testContributions, type KindModel } from './evidence'
+import { findingContributions, modelFor, orderHypotheses, rankHypotheses, testContributions, type KindModel } from './evidence'
 import { deriveFacts } from './facts'
 import { unitRecordFactor } from './hypotheses'
 import type { KnowledgeBase } from './knowledge-base'
@@ -78,15 +78,23 @@ function unsuppliedByStageData(stages: StageConfig[]): Set<string> {
   return out
 }
 
+/** A cause in a replay's order, with its probability. */
+export interface OrderedCause {
+  cause: Cause
+  stage?: Stage
+  probability: number
+}
+
 /**
- * The ranked causes of one request under several knowledge-base versions, without the next test:
- * what a replay of many stored cases needs. The facts are derived once and read by every version;
- * each version's causes are exactly those rankDiagnosis gives it.
+ * The causes of one request in the order each of several versions ranks them, with their
+ * probabilities but without evidence lists, words or next tests: what replaying thousands of stored
+ * cases needs. The facts are derived once and read by every version; the order and probabilities
+ * are exactly those rankDiagnosis gives each version.
  */
-export async function rankCauses(kbs: readonly KnowledgeBase[], request: RankRequest, options: RankOptions = {}): Promise<RankedCause[][]> {
+export async function orderCauses(kbs: readonly KnowledgeBase[], request: RankRequest, options: RankOptions = {}): Promise<OrderedCause[][]> {
   const kind = request.unit.kind
   const derived = deriveFacts(request)
-  const out: RankedCause[][] = []
+  const out: OrderedCause[][] = []
   for (const kb of kbs) {
     const results = resolveTestResults(kb, kind, request.testResults)
     const prepared = prepareKnowledgeBase(kb)
@@ -94,7 +102,7 @@ export async function rankCauses(kbs: readonly KnowledgeBase[], request: RankReq
     const model = modelFor(prepared, kb.causes, kind)
     const priors = startingOdds(kb, model, request, options)
     const tested = testContributions(model, results.diagnosis, run.applied, derived.facts)
-    out.push(rankHypotheses(model, kb.causes, priors.values, [...findingContributions(model, run.applied, derived.facts), ...tested.contributions]).causes)
+    out.push(orderHypotheses(model, priors.values, [...findingContributions(model, run.applied, derived.facts, false), ...tested.contributions]))
   }
   return out
 }

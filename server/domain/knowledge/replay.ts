@@ -6,8 +6,8 @@
  */
 import { rankRequestFor, type CaseState } from '#server/domain/cases/case-record'
 import type { KnowledgeBase } from '#server/domain/diagnosis/knowledge-base'
-import { rankCauses, rankDiagnosis, type RankOptions } from '#server/domain/diagnosis/rank'
-import type { RankedCause, RankResponse } from '#shared/types/diagnosis'
+import { orderCauses, rankDiagnosis, type OrderedCause, type RankOptions } from '#server/domain/diagnosis/rank'
+import type { RankResponse } from '#shared/types/diagnosis'
 import type { UnitDto } from '#shared/types/equipment-dto'
 
 /** What of a case a replay reads. */
@@ -18,7 +18,7 @@ export function rankStoredCase(kb: KnowledgeBase, unit: UnitDto, facts: StoredCa
   return rankDiagnosis(kb, rankRequestFor(unit, facts), { equipmentClass: unit.equipmentClass, ...options })
 }
 
-/** Only the ranked causes of a stored case's facts, with each of several versions (facts derived once). */
-export function rankStoredCaseCauses(kbs: readonly KnowledgeBase[], unit: UnitDto, facts: StoredCaseFacts, options: RankOptions = {}): Promise<RankedCause[][]> {
-  return rankCauses(kbs, rankRequestFor(unit, facts), { equipmentClass: unit.equipmentClass, ...options })
+/** The causes of a stored case's facts in each version's order, without evidence words (facts derived once): the impact replay. */
+export function orderStoredCaseCauses(kbs: readonly KnowledgeBase[], unit: UnitDto, facts: StoredCaseFacts, options: RankOptions = {}): Promise<OrderedCause[][]> {
+  return orderCauses(kbs, rankRequestFor(unit, facts), { equipmentClass: unit.equipmentClass, ...options })
 }
