@@ -100,12 +100,14 @@ function numbers(form: StandingForm, atmosphereKpa: number, errors: StandingView
  * The standing-pressure check: expected pressure from the nameplate charge (and from a recorded reference
  * reading, when the stage has one), and the charge a measured pressure implies.
  */
-export function standingView(info: RefrigerantInfo, form: StandingForm, atmosphereKpa: number, reference?: { pressureKpa: number; ambientC: number }): StandingView {
+export function standingView(info: RefrigerantInfo, form: StandingForm, atmosphereKpa: number, reference?: { pressureKpa: number; ambientC: number }, designPressureKpa?: number): StandingView {
   const errors: StandingView['errors'] = {}
   const n = numbers(form, atmosphereKpa, errors)
   const view: StandingView = { errors }
+  // The stage's design pressure, when known, goes with every check so its warnings compare against it.
+  const design = designPressureKpa !== undefined ? { designPressureKpa } : {}
   const run = (body: Record<string, number | string | undefined>) => {
-    const parsed = StandingPressureBodySchema.safeParse(body)
+    const parsed = StandingPressureBodySchema.safeParse({ ...body, ...design })
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         const field = FIELD_OF[String(issue.path[0])]

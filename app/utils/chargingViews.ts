@@ -6,9 +6,13 @@ import type { ZodType } from 'zod'
 import { ChargingBodySchema, SubstitutionBodySchema } from '#shared/schemas/charging'
 import type { ChargingDto, SubstitutionDto } from '#shared/types/charging-dto'
 import type { UnitStageDto } from '#shared/types/equipment-dto'
+import type { Stage } from '#shared/types/diagnosis'
+import type { NameplateRefillInput } from '#shared/schemas/equipment'
 import { chargingCheck, substitutionPlan } from '#shared/utils/calculator'
 import type { SubstitutionBasis } from '#shared/utils/charging'
-import { findRefrigerant, toKpaAbs, type Designation, type PressureUnit } from '#shared/utils/properties'
+import { formatPressure, formatQuantity } from '#shared/utils/format'
+import { PRESSURE_UNITS, findRefrigerant, toKpaAbs, type Designation, type PressureUnit } from '#shared/utils/properties'
+import { SUBSTITUTION_BASIS_WORDS } from '#shared/utils/vocabulary'
 import { propertyProblem } from './calculatorViews'
 import { parseDecimal } from './decimal'
 
@@ -103,6 +107,40 @@ export function substitutionView(form: SubstitutionForm, atmosphereKpa: number):
   return checkedView(errors, SubstitutionBodySchema, body, SUBSTITUTION_FIELDS, substitutionPlan)
 }
 
+/** The design pressure a picked stage brings to the planner, in absolute kPa as the nameplate record keeps it (empty when unknown). */
+export function designPressureFields(stage: Pick<UnitStageDto, 'designPressureKpa'>): { designPressure: string; designUnit: PressureUnit } | Record<string, never> {
+  return stage.designPressureKpa !== null ? { designPressure: String(Math.round(stage.designPressureKpa * 10) / 10), designUnit: 'kPa' } : {}
+}
+
+/** What a page opened from a case brings to the calculator's cards: the room temperature read and the gauge unit in use. */
+export interface Prefill { ambientC?: string; unit?: PressureUnit }
+
+/** Reads the calculator's query (`ambientC=21.5&gauge=psig`) into a prefill; anything malformed is left out. */
+export function prefillFromQuery(query: Record<string, unknown>): Prefill {
+  const out: Prefill = {}
+  const ambient = typeof query.ambientC === 'string' ? parseDecimal(query.ambientC) : undefined
+  if (ambient?.state === 'ok' && ambient.value >= -60 && ambient.value <= 70) out.ambientC = String(ambient.value)
+  if (typeof query.gauge === 'string' && (PRESSURE_UNITS as readonly string[]).includes(query.gauge)) out.unit = query.gauge as PressureUnit
+  return out
+}
+
+/** Where a chosen plan is saved: a unit's stage, and the case it was planned in when there is one. */
+export interface PlanSaveTarget { unitId: number; unitName: string; stage: Stage; caseId?: number }
+
+/** The body of `POST /api/units/{id}/nameplate` that keeps a chosen plan as the stage's new fill, its figures in words in the note. */
+export function planRecordBody(plan: SubstitutionDto, target: PlanSaveTarget, ownNote: string): NameplateRefillInput {
+  const grams = formatQuantity(plan.chargeG, 'g', 0)
+  const chargeTo = plan.chargeTo
+    ? `charge to ${plan.chargeTo.text} (${formatPressure(plan.standingPressureKpa, { decimals: 1 })}) at ${formatQuantity(plan.ambientC, 'C', 1)} room`
+    : 'weigh it in: its standing pressure cannot measure it'
+  const figures = `${SUBSTITUTION_BASIS_WORDS[plan.basis]} plan for ${plan.volumeL} L: ${grams} of ${plan.to.designation} for the nameplate ${formatQuantity(plan.from.chargeG, 'g', 0)} of ${plan.from.designation}; ${chargeTo}.`
+  const note = [figures, ownNote.trim()].filter(Boolean).join(' ').slice(0, 2000)
+  return {
+    stage: target.stage, refrigerant: plan.to.designation, chargeG: Math.round(plan.chargeG * 10) / 10, basis: plan.basis, note,
+    ...(target.caseId !== undefined ? { caseId: target.caseId } : {}),
+  }
+}
+
 /** A planned charge handed from the substitution planner to the charging card. */
 export interface ChargeTarget { designation: Designation; chargeG: number; volumeL: number; ambientC: number; unit: PressureUnit }
 
@@ -116,6 +154,8 @@ export interface ChargingForm {
   pressureUnit: PressureUnit
   addedG: string
   startG: string
+  /** The picked stage's design pressure (absolute kPa), so the warnings compare against it. */
+  designPressureKpa?: number
 }
 export type ChargingField = 'targetG' | 'volumeL' | 'ambientC' | 'pressure' | 'addedG' | 'startG'
 export type ChargingView = FormView<ChargingField, ChargingDto>
@@ -138,6 +178,7 @@ export function chargingView(form: ChargingForm, atmosphereKpa: number): Chargin
     designation: form.designation, targetChargeG: n.targetG, volumeL: n.volumeL, ambientC: n.ambientC,
     ...(form.by === 'pressure' ? { pressure: n.pressure } : { addedG: n.addedG, startG: n.startG ?? 0 }),
     unit: form.pressureUnit, atmosphericKpa: atmosphereKpa,
+    ...(form.designPressureKpa !== undefined ? { designPressureKpa: form.designPressureKpa } : {}),
   }
   return checkedView(errors, ChargingBodySchema, body, CHARGING_FIELDS, chargingCheck)
 }

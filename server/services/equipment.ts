@@ -13,7 +13,8 @@ import { planRefill } from '#server/domain/equipment/nameplate'
 import { unitUploads } from '#server/db/repositories/uploads'
 import { mergeUnitPatch } from '#server/domain/equipment/unit-patch'
 import { refrigerantSafety } from '#server/domain/equipment/refrigerant-safety'
-import { ConflictError, FieldNotFoundError, NotFoundError } from '#server/domain/errors'
+import { ConflictError, FieldNotFoundError, ForbiddenError, NotFoundError } from '#server/domain/errors'
+import { can } from '#shared/utils/permissions'
 import {
   UnitInputSchema, type ContactInput, type ContactPatch, type CustomerInput, type CustomerListQuery, type CustomerPatch, type SiteInput, type SitePatch,
   type NameplateRefillInput, type UnitInput, type UnitPatch, type UnitRegisterQuery,
@@ -89,6 +90,8 @@ export async function unitNameplateHistory(actor: Actor, input: { unitId: number
 export async function refillStage(actor: Actor, input: NameplateRefillInput & { unitId: number }, now: Date): Promise<{ unit: UnitDto; history: NameplateRecordDto[]; warnings: string[] }> {
   const unit = await getUnit(actor, input)
   const plan = planRefill(unit, input)
+  // Recording the refill in a case writes to the case too: the role must also be one that works cases.
+  if (input.caseId !== undefined && !can(actor.role, 'cases:work')) throw new ForbiddenError('Your role may not add to a case')
   await useDb().transaction(async (transaction) => {
     if (input.caseId !== undefined) {
       const c = await readCaseState(actor.organisationId, input.caseId, transaction)
@@ -103,7 +106,7 @@ export async function refillStage(actor: Actor, input: NameplateRefillInput & { 
     if (input.caseId !== undefined) {
       await appendEvents(input.caseId, actor.id, [{
         type: 'nameplate-changed',
-        payload: { stage: plan.stage, refrigerant: plan.refrigerant, chargeG: plan.chargeG, previousRefrigerant: plan.previousRefrigerant, previousChargeG: plan.previousChargeG, basis: plan.basis, warnings: plan.warnings },
+        payload: { stage: plan.stage, refrigerant: plan.refrigerant, chargeG: plan.chargeG, previousRefrigerant: plan.previousRefrigerant, previousChargeG: plan.previousChargeG, basis: plan.basis, note: plan.note, warnings: plan.warnings },
       }], transaction, now)
     }
   })

@@ -2,7 +2,7 @@
 // case's history is shown; the event types and payloads stay the API's.
 import type { CaseEventDto, CaseEventType } from '#shared/types/cases'
 import type { Quantity, ReadingUnit, Stage } from '#shared/types/diagnosis'
-import { formatPercent, formatReading } from '../format/figures'
+import { formatPercent, formatQuantity, formatReading } from '../format/figures'
 import { formatDuration } from '../format/dates'
 import { causeLabel, hypothesisLabel } from './causes'
 import { readingName } from './quantities'
@@ -84,7 +84,7 @@ export function eventDetail(event: Pick<CaseEventDto, 'type'> & Payload, titles:
     case 'step-struck':
       return `${repairStepLabel(p.kind as RepairStepKind)}${onStage(p.stage)} struck out (${str(p.reason)})`
     case 'nameplate-changed':
-      return `${stageLabel(str(p.stage) as Stage)}: ${str(p.previousRefrigerant)} replaced by ${str(p.refrigerant)}${typeof p.chargeG === 'number' ? `, ${p.chargeG} g` : ''}`
+      return `${stageLabel(str(p.stage) as Stage)}: ${str(p.previousRefrigerant)} replaced by ${str(p.refrigerant)}${typeof p.chargeG === 'number' ? `, ${formatQuantity(p.chargeG, 'g', 0)}` : ''}${p.note ? `. ${str(p.note)}` : ''}`
     case 'report-photos-set':
       return `${((p.uploadIds as number[] | undefined) ?? []).length} photo(s) in the report`
     case 'test-proposed':

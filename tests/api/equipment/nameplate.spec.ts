@@ -25,6 +25,44 @@ describe('nameplate history', () => {
     expect(events.find((e: { type: string }) => e.type === 'nameplate-changed')).toMatchObject({ stage: 'low', refrigerant: 'R1150', previousRefrigerant: 'R170' })
   })
 
+  it('keeps a substitution plan chosen in the planner on the unit and in the case, with its figures; a closed case takes none', async () => {
+    const tech = await signedIn(DEMO.tech)
+    const { siteId } = await customerWithSite(tech)
+    const stages = [
+      { stage: 'high', refrigerant: 'R290', chargeG: 150 },
+      { stage: 'low', refrigerant: 'R13', chargeG: 600, volumeL: 12, designPressureKpa: 2600 },
+    ]
+    const { body: unit } = await tech.post('/api/units', cascadeBody(siteId, { stages }))
+    const opened = await tech.post('/api/cases', { unitId: unit.id, complaint: 'Low stage empty; no R13 to be had' })
+    // 153.8 g of R1150 stands where 600 g of R13 stands in 12 L at 22 °C: R13 (Platzer 1990) and R1150 (Smukala 2000) EOS via CoolProp 8.0.0.
+    const plan = await tech.post('/api/calculations/substitution', { volumeL: 12, ambientC: 22, from: { designation: 'R13', chargeG: 600 }, to: 'R1150', basis: 'standing-pressure', unit: 'psig', designPressureKpa: 2600 })
+    expect(plan.status).toBe(200)
+    expect(plan.body.chargeG).toBeCloseTo(153.8, 1)
+    const note = `Same standing pressure plan for 12 L: 154 g of R1150 for the nameplate 600 g of R13; charge to ${plan.body.chargeTo.text} at 22.0 °C room.`
+    const saved = await tech.post(`/api/units/${unit.id}/nameplate`, { stage: 'low', refrigerant: 'R1150', chargeG: 153.8, basis: plan.body.basis, note, caseId: opened.body.id })
+    expect(saved.status).toBe(201)
+    expect(saved.body.unit.stages.find((s: { stage: string }) => s.stage === 'low')).toMatchObject({ refrigerant: 'R1150', chargeG: 153.8, volumeL: 12, designPressureKpa: 2600 })
+    expect(saved.body.history[0]).toMatchObject({ refrigerant: 'R1150', previousRefrigerant: 'R13', previousChargeG: 600, basis: 'standing-pressure', note, caseId: opened.body.id, by: expect.any(String), at: expect.any(String) })
+    // R13 is A1 and R1150 A3 (ASHRAE 34): the change of safety class is said on saving.
+    expect(saved.body.warnings.join(' ')).toMatch(/from A1 to A3/)
+    const { events } = (await tech.get(`/api/cases/${opened.body.id}`)).body
+    expect(events.find((e: { type: string }) => e.type === 'nameplate-changed')).toMatchObject({ basis: 'standing-pressure', note, refrigerant: 'R1150', chargeG: 153.8, by: expect.anything() })
+
+    // A trainer may neither change the unit nor add to the case.
+    expect((await (await signedIn(DEMO.trainer)).post(`/api/units/${unit.id}/nameplate`, { stage: 'low', refrigerant: 'R170', basis: 'mass', caseId: opened.body.id })).status).toBe(403)
+    // An engineer works cases and edits units: allowed.
+    const engineer = await (await signedIn(DEMO.engineer)).post(`/api/units/${unit.id}/nameplate`, { stage: 'low', refrigerant: 'R170', chargeG: 150, basis: 'mass', caseId: opened.body.id })
+    expect(engineer.status).toBe(201)
+
+    const closed = await tech.post(`/api/cases/${opened.body.id}/close`, { confirmedCauses: [{ cause: 'refrigerant-leak', stage: 'low' }], workDone: 'Refilled the low stage.' })
+    expect(closed.status).toBe(200)
+    const late = await tech.post(`/api/units/${unit.id}/nameplate`, { stage: 'low', refrigerant: 'R1150', chargeG: 153.8, basis: 'standing-pressure', caseId: opened.body.id })
+    expect(late.status).toBe(409)
+    // Refused: nothing changed on the unit or in its history.
+    expect((await tech.get(`/api/units/${unit.id}/nameplate`)).body).toHaveLength(2)
+    expect((await tech.get(`/api/units/${unit.id}`)).body.stages.find((s: { stage: string }) => s.stage === 'low')).toMatchObject({ refrigerant: 'R170', chargeG: 150 })
+  })
+
   it('refuses an unknown refrigerant or stage, another organisation, a trainer, and someone signed out', async () => {
     const tech = await signedIn(DEMO.tech)
     const { siteId } = await customerWithSite(tech)

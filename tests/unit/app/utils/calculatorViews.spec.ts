@@ -67,6 +67,14 @@ describe('standing-pressure check', () => {
     expect(v.measured?.phase).toBe('gas')
   })
 
+  it('checks against the stage design pressure when the stage brings one', () => {
+    // 1992.3 kPa abs expected (Bücker & Wagner 2006 via CoolProp 8.0.0) against a 1900 kPa abs design pressure: over it.
+    const over = standingView(info('R170'), form({}), 101.325, undefined, 1900)
+    expect(over.expected?.warnings.join(' ')).toMatch(/DANGER: at 20\.0 °C this stands at .*above the stage's design pressure/)
+    expect(standingView(info('R170'), form({}), 101.325, undefined, 10_000).expected?.warnings.join(' ')).not.toMatch(/design pressure/)
+    expect(standingView(info('R170'), form({}), 101.325).expected?.warnings.join(' ')).not.toMatch(/design pressure/)
+  })
+
   it('reads a gauge measurement with the local atmosphere', () => {
     const v = standingView(info('R170'), form({ measured: '1890.975', measuredUnit: 'kPag' }), 101.325)
     expect(v.measured?.chargeG).toBeCloseTo(300, 0)

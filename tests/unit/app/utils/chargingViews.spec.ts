@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest'
-import { chargingView, substitutionView, type ChargingForm, type SubstitutionForm } from '~/utils/chargingViews'
+import {
+  chargingView, designPressureFields, planRecordBody, prefillFromQuery, substitutionView, type ChargingForm, type SubstitutionForm,
+} from '~/utils/chargingViews'
 
 // Figures: R13 (Platzer 1990) and R1150 (Smukala 2000) EOS as computed with CoolProp 8.0.0.
 const sub: SubstitutionForm = {
@@ -55,5 +57,46 @@ describe('chargingView', () => {
     expect(w.result!.chargeNowG).toBe(120)
     expect(chargingView({ ...charging, targetG: '0' }, 101.325).errors.targetG).toMatch(/above 0 g/)
     expect(chargingView({ ...charging, pressure: '-20' }, 101.325).problem).toMatch(/perfect vacuum/)
+  })
+})
+
+describe('design pressure from the stage', () => {
+  it('a stage with a design pressure fills the planner in kPa abs; one without leaves the field alone', () => {
+    expect(designPressureFields({ designPressureKpa: 2601.33 })).toEqual({ designPressure: '2601.3', designUnit: 'kPa' })
+    expect(designPressureFields({ designPressureKpa: null })).toEqual({})
+  })
+
+  it('the charging card warns against the stage design pressure it was given', () => {
+    // 100 psig at sea level = 790.8 kPa abs (1 psi = 6.894757 kPa, NIST SP 811); the near/over limits are common practice, no source.
+    expect(chargingView({ ...charging, designPressureKpa: 700 }, 101.325).result!.warnings.join(' ')).toMatch(/^DANGER: at 22\.0 °C this stands at/)
+    expect(chargingView({ ...charging, designPressureKpa: 820 }, 101.325).result!.warnings.join(' ')).toMatch(/Close to the design pressure/)
+    expect(chargingView({ ...charging, designPressureKpa: 5000 }, 101.325).result!.warnings.join(' ')).not.toMatch(/design pressure/)
+  })
+})
+
+describe('prefillFromQuery', () => {
+  it('takes the room temperature and gauge unit a case sends, and drops anything malformed', () => {
+    expect(prefillFromQuery({ ambientC: '21.5', gauge: 'psig' })).toEqual({ ambientC: '21.5', unit: 'psig' })
+    expect(prefillFromQuery({ ambientC: 'warm', gauge: 'inches' })).toEqual({})
+    expect(prefillFromQuery({ ambientC: '400' })).toEqual({})
+    expect(prefillFromQuery({ ambientC: ['20', '21'] })).toEqual({})
+  })
+})
+
+describe('planRecordBody', () => {
+  it("keeps the chosen plan as the stage's new fill, its figures in words in the note", () => {
+    const plan = substitutionView(sub, 101.325).result!
+    const body = planRecordBody(plan, { unitId: 4, unitName: 'Freezer F-204', stage: 'low', caseId: 9 }, '  cylinder 17 ')
+    // 153.8 g and 137.6 psig: R13 (Platzer 1990) and R1150 (Smukala 2000) EOS via CoolProp 8.0.0, sea-level gauge.
+    expect(body).toMatchObject({ stage: 'low', refrigerant: 'R1150', chargeG: 153.8, basis: 'standing-pressure', caseId: 9 })
+    expect(body.note).toMatch(/^Same standing pressure plan for 12 L: 154 g of R1150 for the nameplate 600 g of R13; charge to 137\.6 psig \(\d+\.\d kPa abs\) at 22\.0 °C room\. cylinder 17$/)
+    expect(planRecordBody(plan, { unitId: 4, unitName: 'Freezer F-204', stage: 'low' }, '')).not.toHaveProperty('caseId')
+  })
+
+  it('a plan that is partly liquid at the ambient says to weigh it in', () => {
+    // 600 g of R13 as 600 g of R170 in 1 L at 22 °C is far denser than its saturated vapour (two-phase).
+    const plan = substitutionView({ ...sub, to: 'R170', volumeL: '1', basis: 'mass' }, 101.325).result!
+    expect(plan.chargeTo).toBeNull()
+    expect(planRecordBody(plan, { unitId: 4, unitName: 'F', stage: 'low' }, '').note).toMatch(/weigh it in/)
   })
 })

@@ -1,0 +1,143 @@
+// Refilling a stage with another refrigerant, at phone and desktop size: the planner on the case
+// page saves the chosen plan on the unit and in the case's timeline; the calculator opened from the
+// case brings the stage's design pressure and the room temperature read; the unit page saves a plan
+// on the unit alone; a trainer may plan but sees no save button. Each run makes its own unit, so
+// the demo units other tests read keep their nameplate fills.
+import { expect, test, type APIRequestContext, type Page } from '@playwright/test'
+import { PHONE, gotoReady, signIn } from './helpers'
+
+const DESKTOP_WIDE = { width: 1366, height: 900 }
+const tag = () => Math.random().toString(36).slice(2, 8).toUpperCase()
+
+/** A cascade unit at sea level whose low stage holds 600 g of R13 in 12 L, design pressure 2600 kPa abs, with an open case. */
+async function unitWithCase(request: APIRequestContext) {
+  const name = `Plan test ${tag()}`
+  const customer = await (await request.post('/api/customers', { data: { name } })).json()
+  const site = await (await request.post('/api/sites', { data: { customerId: customer.id, name: `${name} lab`, address: '2 Frost Row', altitudeM: 0 } })).json()
+  const unit = await (await request.post('/api/units', {
+    data: {
+      name: `Freezer ${tag()}`, model: 'Deepcold 6', serial: `DC6-${tag()}`, kind: 'cascade', equipmentClass: 'ult-freezer', location: 'Room 4', siteId: site.id,
+      designCabinetC: -86, designCascadeHxC: -35,
+      stages: [{ stage: 'high', refrigerant: 'R290', chargeG: 150 }, { stage: 'low', refrigerant: 'R13', chargeG: 600, volumeL: 12, designPressureKpa: 2600 }],
+    },
+  })).json()
+  const opened = await (await request.post('/api/cases', { data: { unitId: unit.id, complaint: 'Low stage empty after a leak repair; no R13 in stock' } })).json()
+  const reading = await request.post(`/api/cases/${opened.id}/readings`, { data: { readings: [{ quantity: 'ambientTemperature', value: 22, unit: 'C' }] } })
+  expect(reading.status()).toBe(200)
+  return { unitId: unit.id as number, unitName: unit.name as string, caseId: opened.id as number }
+}
+
+function consoleErrors(page: Page): string[] {
+  const problems: string[] = []
+  page.on('console', (m) => { if (m.type() === 'error' || /hydration/i.test(m.text())) problems.push(`${m.type()}: ${m.text()}`) })
+  page.on('pageerror', (e) => problems.push(`page error: ${e.message}`))
+  return problems
+}
+
+async function expectNoSidewaysScroll(page: Page) {
+  expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth + 1)).toBe(true)
+}
+
+/** Opens the planner of `where` for the low stage and plans R1150 on the same-standing-pressure basis, shown in psig. */
+async function planEthylene(page: Page, where: ReturnType<Page['getByRole']>) {
+  await where.getByRole('button', { name: 'Plan a substitute charge' }).click()
+  const card = where.getByRole('region', { name: 'Substitute refrigerant: charge plan' })
+  await expect(card.getByRole('textbox', { name: 'Charge on the nameplate (g)' })).toHaveValue('600')
+  await expect(card.getByRole('textbox', { name: 'Volume of the stage (L)' })).toHaveValue('12')
+  // The stage's design pressure comes from its nameplate record, in kPa abs.
+  await expect(card.getByRole('textbox', { name: 'Design pressure, if known' })).toHaveValue('2600')
+  await card.getByLabel('Substitute refrigerant').selectOption('R1150')
+  await card.getByLabel('Show the pressure to charge to in').selectOption('psig')
+  return card
+}
+
+for (const [size, viewport] of [['phone', PHONE], ['desktop', DESKTOP_WIDE]] as const) {
+  test(`${size}: a plan chosen on the case page is saved on the unit and in the timeline; the calculator opened from the case checks against the design pressure`, async ({ page }) => {
+    const problems = consoleErrors(page)
+    await page.setViewportSize(viewport)
+    await signIn(page, 'tech@rimecase.demo')
+    const { unitId, unitName, caseId } = await unitWithCase(page.request)
+    await gotoReady(page, `/cases/${caseId}`)
+
+    // The expected standing pressure of the nameplate charge: gauge figure, "charge to this", and the way to the calculator for this stage.
+    const charge = page.getByRole('region', { name: 'Standing pressure to charge to' })
+    await expect(charge).toContainText('charge to this')
+    await expect(charge).toContainText('psig')
+    const link = charge.getByRole('link', { name: 'Plan or follow the charge in the calculator' })
+    const href = await link.getAttribute('href')
+    expect(href).toContain(`unit=${unitId}`)
+    expect(href).toContain('stage=low')
+    expect(href).toContain(`case=${caseId}`)
+    expect(href).toContain('ambientC=22')
+    expect(href).toContain('gauge=psig')
+
+    const planner = page.getByRole('region', { name: 'Refill with another refrigerant' })
+    const card = await planEthylene(page, planner)
+    await expect(card.getByRole('textbox', { name: 'Ambient now (°C)' })).toHaveValue('22')
+    const chargeTo = card.getByRole('status', { name: 'Substitution plan' }).getByLabel('Charge to')
+    // 153.8 g and 137.6 psig: R13 (Platzer 1990) and R1150 (Smukala 2000) EOS via CoolProp 8.0.0, sea-level gauge (ISO 2533).
+    await expect(chargeTo).toContainText('154 g of R1150')
+    await expect(chargeTo).toContainText('137.6 psig')
+    await expectNoSidewaysScroll(page)
+
+    const save = card.getByRole('group', { name: 'Save this plan' })
+    await save.getByLabel('Note with the plan (optional)').fill('Cylinder ETY-22')
+    await save.getByRole('button', { name: `Save this plan on the unit and in case ${caseId}` }).click()
+    await expect(planner.getByRole('status')).toContainText(`Saved on the unit and in case ${caseId}: the low stage of ${unitName} now holds 154 g of R1150`)
+    // R13 is A1 and R1150 A3 (ASHRAE 34): the cautions of the change stay on screen after saving.
+    await expect(planner.getByRole('list', { name: 'Before charging' })).toContainText('from A1 to A3')
+    const timeline = page.getByRole('region', { name: 'Timeline' })
+    await expect(timeline).toContainText('R13 replaced by R1150, 154 g')
+    await expect(timeline).toContainText('Same standing pressure plan for 12 L')
+    await expect(timeline).toContainText('Cylinder ETY-22')
+
+    // The calculator from the case: the stage (now R1150, 153.8 g), the room temperature, the gauge unit and the design pressure come along.
+    await page.getByRole('region', { name: 'Standing pressure to charge to' }).getByRole('link', { name: 'Plan or follow the charge in the calculator' }).click()
+    await expect(page.getByRole('heading', { level: 1, name: 'Calculator' })).toBeVisible()
+    await expect(page.getByLabel('Refrigerant', { exact: true })).toHaveValue('R1150')
+    const standing = page.getByRole('region', { name: 'Standing-pressure check' })
+    await expect(standing.getByRole('textbox', { name: 'Ambient (°C)' })).toHaveValue('22')
+    await expect(standing.getByTestId('design-pressure-note')).toContainText('2600 kPa abs')
+    await expect(standing.getByLabel('Unit of the measured pressure')).toHaveValue('psig')
+    // 2600 kPa abs = 24.987 bar g at sea level (1 bar = 100 kPa).
+    await expect(standing.getByTestId('design-pressure-note')).toContainText('24.987 bar g')
+    const calcPlan = page.getByRole('region', { name: 'Substitute refrigerant: charge plan' })
+    await expect(calcPlan.getByRole('textbox', { name: 'Design pressure, if known' })).toHaveValue('2600')
+    await expect(calcPlan.getByRole('button', { name: `Save this plan on the unit and in case ${caseId}` })).toBeVisible()
+    await expectNoSidewaysScroll(page)
+    expect(problems).toEqual([])
+  })
+
+  test(`${size}: the unit page saves a plan on the unit's nameplate history; a trainer may plan but not save`, async ({ page, browser }) => {
+    const problems = consoleErrors(page)
+    await page.setViewportSize(viewport)
+    await signIn(page, 'tech@rimecase.demo')
+    const { unitId } = await unitWithCase(page.request)
+    await gotoReady(page, `/units/${unitId}`)
+    const planner = page.getByRole('region', { name: 'Refill with another refrigerant' })
+    const card = await planEthylene(page, planner)
+    await card.getByRole('textbox', { name: 'Ambient now (°C)' }).fill('20')
+    await card.getByRole('status', { name: 'Substitution plan' }).getByRole('radio', { name: 'Same mass' }).check()
+    // 600 g of R1150 in 12 L stands far above the 2600 kPa abs design pressure: DANGER on the plan.
+    await expect(card.getByRole('article', { name: 'Same mass' })).toContainText('DANGER')
+    await card.getByRole('status', { name: 'Substitution plan' }).getByRole('radio', { name: 'Same standing pressure' }).check()
+    await expectNoSidewaysScroll(page)
+    await card.getByRole('group', { name: 'Save this plan' }).getByRole('button', { name: 'Save this plan on the unit' }).click()
+    await expect(planner.getByRole('status')).toContainText('Saved on the unit: the low stage of')
+    const history = page.getByRole('region', { name: 'Nameplate history' })
+    await expect(history).toContainText(/Low stage: R13 600 g → R1150 1\d\d g/)
+    await expect(history).toContainText('Same standing pressure plan for 12 L')
+    await expect(history).toContainText('at 20.0 °C room')
+    expect(problems).toEqual([])
+
+    const trainerContext = await browser.newContext({ viewport })
+    const trainer = await trainerContext.newPage()
+    await signIn(trainer, 'trainer@rimecase.demo')
+    await gotoReady(trainer, `/units/${unitId}`)
+    const trainerPlanner = trainer.getByRole('region', { name: 'Refill with another refrigerant' })
+    await trainerPlanner.getByRole('button', { name: 'Plan a substitute charge' }).click()
+    await expect(trainerPlanner.getByRole('status', { name: 'Substitution plan' })).toBeVisible()
+    await expect(trainerPlanner.getByRole('group', { name: 'Save this plan' })).toHaveCount(0)
+    await trainerContext.close()
+  })
+}
