@@ -49,6 +49,7 @@ const recharge = z.object({
   method: wordEnum('recharge method', RECHARGE_METHODS),
   refrigerant: z.string().trim().min(2).max(12).optional(),
   grams: figure('Grams').positive('Grams must be more than 0').max(500_000, 'That is more than any unit holds').optional(),
+  startGrams: figure('Grams already in').nonnegative('Grams already in cannot be negative').max(500_000, 'That is more than any unit holds').optional(),
   targetGrams: figure('Target grams').positive('The target must be more than 0 g').max(500_000, 'That is more than any unit holds').optional(),
   pressure: figure('Standing pressure').optional(),
   pressureUnit: wordEnum('pressure unit', PRESSURE_READING_UNITS).optional(),

@@ -71,9 +71,14 @@ export interface RechargeInput {
   refrigerant?: string
   /** Grams weighed in on the scale. */
   grams?: number
+  /** Grams already in the stage before this weighing (0 for an evacuated stage). */
+  startGrams?: number
   /** Grams the stage should hold; the nameplate charge unless given. */
   targetGrams?: number
-  /** Standing pressure read after charging, settled, with the ambient. */
+  /**
+   * Standing pressure read after charging, settled, with the ambient. By scale, the ambient (and the
+   * unit) give the standing pressure to expect for the grams weighed in.
+   */
   pressure?: number
   pressureUnit?: PressureReadingUnit
   ambientC?: number

@@ -141,3 +141,46 @@ for (const [size, viewport] of [['phone', PHONE], ['desktop', DESKTOP_WIDE]] as 
     await trainerContext.close()
   })
 }
+
+for (const [size, viewport] of [['phone', PHONE], ['desktop', DESKTOP_WIDE]] as const) {
+  test(`${size}: recharging in the case answers as gas goes in, by standing pressure and by weight, and each step lands in the timeline`, async ({ page }) => {
+    const problems = consoleErrors(page)
+    await page.setViewportSize(viewport)
+    await signIn(page, 'tech@rimecase.demo')
+    const { caseId } = await unitWithCase(page.request)
+    await gotoReady(page, `/cases/${caseId}`)
+    const form = page.getByRole('form', { name: 'Record a repair step' })
+    await form.getByRole('combobox', { name: 'Step', exact: true }).selectOption({ label: 'Recharge' })
+    await form.getByRole('combobox', { name: 'Stage', exact: true }).selectOption({ label: 'Low stage (R13)' })
+    const now = form.getByRole('status', { name: 'Charge now' })
+
+    // A settled standing pressure of 100 psig at 22 °C: the browser must show what the charging route answers.
+    await form.getByLabel('Standing pressure, settled').fill('100')
+    await form.getByLabel('Room temperature (°C)').fill('22')
+    const byPressure = await (await page.request.post('/api/calculations/charging', { data: { designation: 'R13', volumeL: 12, ambientC: 22, targetChargeG: 600, pressure: 100, unit: 'psig' } })).json() as { chargeNowG: number; toGoG: number; percentOfTarget: number; target: { reading: { text: string } } }
+    expect(byPressure.toGoG).toBeGreaterThan(0)
+    await expect(now).toContainText(`${Math.round(byPressure.chargeNowG)} g`)
+    await expect(now).toContainText(`Grams to go${Math.round(byPressure.toGoG)} g`)
+    await expect(now).toContainText(`${Math.round(byPressure.percentOfTarget)} %`)
+    await expect(now).toContainText(byPressure.target.reading.text)
+    await expectNoSidewaysScroll(page)
+    await form.getByRole('button', { name: 'Record this step' }).click()
+    await expect(page.getByRole('heading', { level: 3, name: /Recharge · Low stage: Not finished/ })).toBeVisible()
+
+    // Then by weight: 150 g on top of what the pressure showed gives the pressure to expect once settled.
+    await form.getByLabel('How').selectOption({ label: 'By weight on a scale' })
+    await form.getByLabel('Grams weighed in').fill('150')
+    await form.getByLabel('Already in before (g, blank for an evacuated stage)').fill(String(Math.round(byPressure.chargeNowG)))
+    await form.getByLabel('Room temperature (°C)').fill('22')
+    const byWeight = await (await page.request.post('/api/calculations/charging', { data: { designation: 'R13', volumeL: 12, ambientC: 22, targetChargeG: 600, addedG: 150, startG: Math.round(byPressure.chargeNowG), unit: 'psig' } })).json() as { reading: { text: string } }
+    await expect(now).toContainText(`Standing pressure to expect, settled${byWeight.reading.text}`)
+    await form.getByRole('button', { name: 'Record this step' }).click()
+    await expect(page.getByRole('heading', { level: 3, name: /Recharge · Low stage: Done/ })).toBeVisible()
+
+    const timeline = page.getByRole('region', { name: 'Timeline' })
+    await expect(timeline).toContainText('to go')
+    await expect(timeline).toContainText(`150 g of R13 weighed in on top of ${Math.round(byPressure.chargeNowG)} g`)
+    await expect(timeline).toContainText(`it should stand at ${byWeight.reading.text}`)
+    expect(problems).toEqual([])
+  })
+}

@@ -190,18 +190,7 @@ function recharge(input: RechargeInput, ctx: StepContext): RepairStepResult {
   const cautions = stepCautions('recharge', d)
   const figures: StepFigure[] = [{ label: 'Refrigerant', value: d }]
   if (input.cylinder) figures.push({ label: 'Cylinder', value: input.cylinder })
-  if (input.method === 'scale') {
-    if (input.grams === undefined) refuse({ grams: ['Enter the grams weighed in on the scale'] })
-    figures.push({ label: 'Weighed in', value: formatQuantity(input.grams, 'g', 0) })
-    if (target) figures.push({ label: 'Target charge', value: formatQuantity(target, 'g', 0) })
-    const share = target ? (input.grams / target) * 100 : undefined
-    if (share !== undefined) figures.push({ label: 'Share of the target', value: formatQuantity(share, '%', 0) })
-    return {
-      verdict: 'done',
-      summary: `${formatQuantity(input.grams, 'g', 0)} of ${d} weighed in${target ? ` against a target of ${formatQuantity(target, 'g', 0)}` : ''}.`,
-      figures, warnings: [], cautions,
-    }
-  }
+  if (input.method === 'scale') return rechargeByScale(input, ctx, d, target, figures, cautions)
   const errors: FieldErrors = {}
   if (input.pressure === undefined || !input.pressureUnit) errors.pressure = ['Enter the standing pressure read after charging, and its unit']
   if (input.ambientC === undefined) errors.ambientC = ['Enter the room temperature the stage settled at']
@@ -227,11 +216,63 @@ function recharge(input: RechargeInput, ctx: StepContext): RepairStepResult {
     { label: progress.chargeIsMinimum ? 'Grams in the stage (at least)' : 'Grams in the stage', value: formatQuantity(progress.chargeNowG, 'g', 0) },
     { label: 'Target charge', value: formatQuantity(target!, 'g', 0) },
     { label: 'Share of the target', value: formatQuantity(progress.percentOfTarget, '%', 0) },
+    toGoFigure(progress.toGoG),
     { label: 'Atmosphere used for gauge readings', value: formatPressure(ctx.atmosphericKpa, { decimals: 1 }) },
   )
   const onTarget = Math.abs(progress.toGoG) <= 0.02 * target!
   const verdict = onTarget ? 'pass' : progress.toGoG > 0 ? 'incomplete' : 'fail'
   return { verdict, summary: progress.note, figures, warnings: progress.warnings, cautions: [...new Set([...progress.cautions, ...cautions])] }
+}
+
+/** "Grams to go", or how far over the target the stage is. */
+function toGoFigure(toGoG: number): StepFigure {
+  return toGoG >= 0 ? { label: 'Grams to go', value: formatQuantity(toGoG, 'g', 0) } : { label: 'Over the target by', value: formatQuantity(-toGoG, 'g', 0) }
+}
+
+/**
+ * Weighed in on a scale: the grams are the measure. With the room temperature and the stage's volume,
+ * the standing pressure to expect once the stage has settled is shown too, so the gauge can confirm
+ * the scale (and the design pressure is checked).
+ */
+function rechargeByScale(input: RechargeInput, ctx: StepContext, d: Designation, target: number | undefined, figures: StepFigure[], cautions: string[]): RepairStepResult {
+  if (input.grams === undefined) refuse({ grams: ['Enter the grams weighed in on the scale'] })
+  const start = input.startGrams ?? 0
+  const now = start + input.grams
+  figures.push({ label: 'Weighed in', value: formatQuantity(input.grams, 'g', 0) })
+  if (start > 0) figures.push({ label: 'Already in before', value: formatQuantity(start, 'g', 0) }, { label: 'Grams in the stage', value: formatQuantity(now, 'g', 0) })
+  if (target) {
+    figures.push({ label: 'Target charge', value: formatQuantity(target, 'g', 0) }, { label: 'Share of the target', value: formatQuantity((now / target) * 100, '%', 0) }, toGoFigure(target - now))
+  }
+  const warnings: string[] = []
+  let expect = ''
+  if (input.ambientC !== undefined && ctx.stage.volumeL) {
+    const unit = (input.pressureUnit ?? 'psig') as PressureUnit
+    let progress: ReturnType<typeof chargingProgress>
+    try {
+      progress = chargingProgress(
+        { designation: d, volumeL: ctx.stage.volumeL, ambientC: input.ambientC, targetChargeG: target ?? now, display: { unit, atmosphericKpa: ctx.atmosphericKpa },
+          ...(ctx.stage.designPressureKpa ? { designPressureKpa: ctx.stage.designPressureKpa } : {}) },
+        { by: 'weight', addedG: input.grams, startG: start },
+      )
+    } catch (error) {
+      refuse({ grams: [error instanceof Error ? error.message : 'This charge is outside what the refrigerant can be at in this stage'] })
+    }
+    const measurable = progress.phase === 'gas' || progress.phase === 'supercritical'
+    const shown = formatPressure(progress.standingPressureKpa, { unit, atmosphericKpa: ctx.atmosphericKpa })
+    figures.push(
+      { label: 'Standing pressure to expect, settled', value: measurable ? `${shown} at ${formatQuantity(input.ambientC, 'C', 1)} room` : `${shown}: partly liquid, the gauge cannot confirm the grams` },
+      { label: 'Atmosphere used for gauge readings', value: formatPressure(ctx.atmosphericKpa, { decimals: 1 }) },
+    )
+    if (measurable) expect = ` Once settled at ${formatQuantity(input.ambientC, 'C', 1)} it should stand at ${shown}.`
+    warnings.push(...progress.warnings.filter((w) => !w.startsWith('The target')))
+  }
+  const toGo = target ? target - now : undefined
+  const against = target ? ` against a target of ${formatQuantity(target, 'g', 0)}${toGo !== undefined && toGo > 0 ? `, ${formatQuantity(toGo, 'g', 0)} to go` : ''}` : ''
+  return {
+    verdict: 'done',
+    summary: `${formatQuantity(input.grams, 'g', 0)} of ${d} weighed in${start > 0 ? ` on top of ${formatQuantity(start, 'g', 0)}` : ''}${against}.${expect}`,
+    figures, warnings, cautions,
+  }
 }
 
 /** Judges a step from its figures on its stage; throws ImplausibleInputError (422) for figures that cannot be true or a safety gate not passed. */

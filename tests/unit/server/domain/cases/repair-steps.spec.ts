@@ -118,6 +118,36 @@ describe('recharge', () => {
     expect(result.summary).toMatch(/to go/)
   })
 
+  it('by standing pressure: the grams to go are the target less the grams the pressure shows', () => {
+    const result = evaluateStep({ kind: 'recharge', stage: 'low', method: 'standing-pressure', pressure: 40, pressureUnit: 'psig', ambientC: 22 }, { stage: low, atmosphericKpa: SEA_LEVEL })
+    // By hand: 40 psig = 40 × 6.894757 + 101.325 = 377.115 kPa abs; the equation of state gives the grams at that pressure.
+    const inStage = Number(result.figures.find((f) => f.label === 'Grams in the stage')!.value.replace(/[^\d.]/g, ''))
+    const toGo = Number(result.figures.find((f) => f.label === 'Grams to go')!.value.replace(/[^\d.]/g, ''))
+    expect(Math.abs(inStage + toGo - 90)).toBeLessThanOrEqual(1)
+  })
+
+  it('by scale with the room temperature: the standing pressure to expect, round trip through the equation of state', () => {
+    // 45 g weighed in on top of 30 g in 7.5 L at 22 °C: the pressure 75 g of ethane stands at (Bücker & Wagner 2006 EOS).
+    const expected = standingPressureFromCharge({ designation: 'R170', ambientC: 22, volumeL: 7.5, chargeG: 75 })
+    const gauge = (expected.pressureKpa - SEA_LEVEL) / PSI_KPA
+    const result = evaluateStep({ kind: 'recharge', stage: 'low', method: 'scale', grams: 45, startGrams: 30, ambientC: 22, pressureUnit: 'psig' }, { stage: low, atmosphericKpa: SEA_LEVEL })
+    expect(result.verdict).toBe('done')
+    expect(result.figures.find((f) => f.label === 'Standing pressure to expect, settled')!.value).toBe(`${gauge.toFixed(1)} psig at 22.0 °C room`)
+    expect(result.figures.find((f) => f.label === 'Grams in the stage')!.value).toBe('75 g')
+    expect(result.figures.find((f) => f.label === 'Grams to go')!.value).toBe('15 g')
+    expect(result.figures.find((f) => f.label === 'Share of the target')!.value).toBe('83 %')
+    expect(result.summary).toMatch(/15 g to go\. Once settled at 22\.0 °C it should stand at/)
+    // Past the target: how far over, not a negative "to go".
+    const over = evaluateStep({ kind: 'recharge', stage: 'low', method: 'scale', grams: 100 }, { stage: low, atmosphericKpa: SEA_LEVEL })
+    expect(over.figures.find((f) => f.label === 'Over the target by')!.value).toBe('10 g')
+  })
+
+  it('by scale: the expected pressure is checked against the stage design pressure', () => {
+    // 90 g of ethane in 7.5 L at 22 °C (12 kg/m³) stands near 0.9 MPa abs (Bücker & Wagner 2006 EOS); a 700 kPa abs design pressure is below it.
+    const result = evaluateStep({ kind: 'recharge', stage: 'low', method: 'scale', grams: 90, ambientC: 22 }, { stage: { ...low, designPressureKpa: 700 }, atmosphericKpa: SEA_LEVEL })
+    expect(result.warnings.join(' ')).toMatch(/^DANGER/)
+  })
+
   it('by scale: grams against the nameplate charge; standing pressure needs the stage volume', () => {
     expect(evaluateStep({ kind: 'recharge', stage: 'low', method: 'scale', grams: 90 }, { stage: low, atmosphericKpa: SEA_LEVEL }).figures.find((f) => f.label === 'Share of the target')!.value).toBe('100 %')
     expect(refusal(() => evaluateStep({ kind: 'recharge', stage: 'low', method: 'standing-pressure', pressure: 40, pressureUnit: 'psig', ambientC: 22 }, { stage: { ...low, volumeL: null }, atmosphericKpa: SEA_LEVEL })).fieldErrors.stage).toBeDefined()
