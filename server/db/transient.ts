@@ -59,6 +59,14 @@ export function isTransientDbError(error: unknown): boolean {
 }
 
 /**
+ * True when the error is worth another try: a passing failure, but not a pool that stayed full for
+ * its whole acquire timeout (the server is overloaded; waiting again would only add to the queue).
+ */
+export function isRetryableDbError(error: unknown): boolean {
+  return isTransientDbError(error) && !chain(error).some((e) => e.name === 'SequelizeConnectionAcquireTimeoutError')
+}
+
+/**
  * True when the failed work certainly did not take effect: the server rolled it back (serialization
  * failure, deadlock) or no connection was ever made. A connection cut while a statement ran leaves
  * its outcome unknown, so this is false for it.
@@ -77,7 +85,7 @@ export interface RetryOptions {
   /** Wait before the second try; it doubles for each later one, up to `maxDelayMs`. */
   baseDelayMs?: number
   maxDelayMs?: number
-  /** Which errors are worth another try (default: isTransientDbError). */
+  /** Which errors are worth another try (default: isRetryableDbError). */
   retryable?: (error: unknown) => boolean
   /** Told before each wait, e.g. to log it. */
   onRetry?: (error: unknown, attempt: number, delayMs: number) => void
@@ -105,7 +113,7 @@ export async function retryTransient<T>(work: (attempt: number) => Promise<T>, o
   const attempts = Math.max(1, options.attempts ?? DEFAULT_RETRY.attempts)
   const base = options.baseDelayMs ?? DEFAULT_RETRY.baseDelayMs
   const max = options.maxDelayMs ?? DEFAULT_RETRY.maxDelayMs
-  const retryable = options.retryable ?? isTransientDbError
+  const retryable = options.retryable ?? isRetryableDbError
   const sleep = options.sleep ?? defaultSleep
   for (let attempt = 0; ; attempt++) {
     try {

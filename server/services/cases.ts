@@ -7,7 +7,7 @@ import type { CacheStamps } from '#server/db/repositories/cache-stamps'
 import { caseUnitId, findCase, findCases, readCaseState, type LockedCase } from '#server/db/repositories/case-records'
 import { appendEvents, commitIfUnchanged, insertCase, insertTransactions, saveCase } from '#server/db/repositories/case-writes'
 import { findUnit } from '#server/db/repositories/equipment'
-import { certainlyNotApplied, isTransientDbError, retryTransient } from '#server/db/transient'
+import { certainlyNotApplied, isRetryableDbError, retryTransient } from '#server/db/transient'
 import {
   assertWritable, planAddendum, planClosing, planNote, planOutcomeCorrection, planReadingCorrection, planReadings, planReportPhotos, planStep, planStepStrike,
   planSymptoms, planTestResult, type CaseChange,
@@ -150,7 +150,7 @@ async function changeCaseLocked<C extends CaseChange>(
     await appendEvents(caseId, actor.id, [...change.events, ...more], transaction, now)
     await saveCase(caseId, change.changes, transaction)
     committing = true
-  }), { retryable: (error) => isTransientDbError(error) && (!committing || certainlyNotApplied(error)) })
+  }), { retryable: (error) => isRetryableDbError(error) && (!committing || certainlyNotApplied(error)) })
   return record(actor, caseId, unit)
 }
 

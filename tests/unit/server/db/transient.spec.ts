@@ -2,7 +2,7 @@
 // are PostgreSQL's SQLSTATEs (PostgreSQL documentation, appendix A "Error Codes") and Node's socket
 // errnos; the wrapped shapes are the ones Sequelize 6 and node-postgres throw.
 import { describe, expect, it, vi } from 'vitest'
-import { backoffDelay, certainlyNotApplied, isTransientDbError, retryTransient } from '#server/db/transient'
+import { backoffDelay, certainlyNotApplied, isRetryableDbError, isTransientDbError, retryTransient } from '#server/db/transient'
 
 const pgError = (code: string, message = 'database error') => Object.assign(new Error(message), { code })
 /** How Sequelize wraps a driver error: its own error type with the driver's error as `parent` and `original`. */
@@ -48,6 +48,17 @@ describe('isTransientDbError', () => {
     const loop = new Error('loop') as Error & { parent?: unknown }
     loop.parent = loop
     expect(isTransientDbError(loop)).toBe(false)
+  })
+})
+
+describe('isRetryableDbError', () => {
+  it('retries passing failures but not a pool that stayed full for its whole timeout', () => {
+    expect(isRetryableDbError(wrapped('SequelizeConnectionRefusedError', pgError('ECONNREFUSED')))).toBe(true)
+    expect(isRetryableDbError(pgError('40P01'))).toBe(true)
+    const poolFull = Object.assign(new Error('Operation timeout'), { name: 'SequelizeConnectionAcquireTimeoutError' })
+    expect(isTransientDbError(poolFull)).toBe(true)
+    expect(isRetryableDbError(poolFull)).toBe(false)
+    expect(isRetryableDbError(pgError('23505'))).toBe(false)
   })
 })
 
@@ -100,6 +111,14 @@ describe('retryTransient', () => {
     }, { attempts: 4, baseDelayMs: 50, maxDelayMs: 120, sleep: async (ms) => { waits.push(ms) }, random: () => 0.5 })).rejects.toBe(error)
     expect(tries).toBe(4)
     expect(waits).toEqual([50, 100, 120])
+  })
+
+  it('does not wait again for a pool that stayed full', async () => {
+    const work = vi.fn(async () => {
+      throw Object.assign(new Error('Operation timeout'), { name: 'SequelizeConnectionAcquireTimeoutError' })
+    })
+    await expect(retryTransient(work, noWait)).rejects.toThrow('Operation timeout')
+    expect(work).toHaveBeenCalledTimes(1)
   })
 
   it('never repeats work that failed for a real reason', async () => {
