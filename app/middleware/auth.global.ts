@@ -4,6 +4,8 @@ import { can, type Permission } from '#shared/utils/permissions'
 // permission the role lacks back home (the same table the server checks; the server decides).
 export default defineNuxtRouteMiddleware((to) => {
   const { loggedIn, user } = useUserSession()
+  // The first administrator's set-up page is open to the holder of its one-time link.
+  if (to.path === '/setup') return
   if (to.path === '/login') {
     if (loggedIn.value) return navigateTo('/')
     return

@@ -17,10 +17,15 @@ export function readDotEnv() {
   )
 }
 
-/** Makes sure .env holds a session secret of 32+ characters; returns the merged environment. */
+/**
+ * Makes sure there is a session secret of 32+ characters: NUXT_SESSION_PASSWORD from the
+ * environment, or from .env (written with a new random one when missing); returns the merged environment.
+ */
 export function ensureSessionSecret() {
   const env = readDotEnv()
-  if (!env.NUXT_SESSION_PASSWORD || env.NUXT_SESSION_PASSWORD.length < 32) {
+  if (process.env.NUXT_SESSION_PASSWORD && process.env.NUXT_SESSION_PASSWORD.length >= 32) {
+    env.NUXT_SESSION_PASSWORD = process.env.NUXT_SESSION_PASSWORD
+  } else if (!env.NUXT_SESSION_PASSWORD || env.NUXT_SESSION_PASSWORD.length < 32) {
     const secret = randomBytes(32).toString('hex')
     const file = join(ROOT, '.env')
     const before = existsSync(file) ? readFileSync(file, 'utf8') : ''
@@ -31,8 +36,8 @@ export function ensureSessionSecret() {
   return env
 }
 
-const tsx = (args, env) =>
-  run(join(ROOT, 'node_modules', '.bin', 'tsx'), ['--tsconfig', 'tsconfig.scripts.json', ...args], { env: { ...process.env, ...env } })
+const tsx = (args, env, options = {}) =>
+  run(join(ROOT, 'node_modules', '.bin', 'tsx'), ['--tsconfig', 'tsconfig.scripts.json', ...args], { env: { ...process.env, ...env }, ...options })
 
 /** Applies pending migrations, then the seeders (each runs once). */
 export function migrateAndSeed(databaseUrl, { seed = true } = {}) {
@@ -42,6 +47,18 @@ export function migrateAndSeed(databaseUrl, { seed = true } = {}) {
     step('Seeding the demo')
     tsx(['scripts/db.ts', 'seed'], { DATABASE_URL: databaseUrl })
   }
+}
+
+/**
+ * A deployment without the demo: makes sure an administrator exists (from RIMECASE_ADMIN_EMAIL /
+ * RIMECASE_ADMIN_PASSWORD, or a one-time set-up link). Returns { state, email?, token?, expiresAt?,
+ * demoAccounts } (scripts/db.ts first-admin).
+ */
+export function ensureFirstAdmin(databaseUrl, dotEnv = {}) {
+  step('Checking for an administrator')
+  const output = tsx(['scripts/db.ts', 'first-admin'], { ...dotEnv, ...process.env, DATABASE_URL: databaseUrl }, { stdio: ['ignore', 'pipe', 'inherit'], encoding: 'utf8' })
+  const last = output.trim().split('\n').at(-1)
+  return JSON.parse(last)
 }
 
 function newestMtime(dir) {

@@ -13,12 +13,14 @@ export function step(message) {
   console.log(`\x1b[36m▸\x1b[0m ${message}`)
 }
 
-/** Runs a command in the project root, inheriting output; throws when it fails. */
+/** Runs a command in the project root, inheriting output (unless `options.stdio` says otherwise); throws when it fails. Returns its stdout when piped. */
 export function run(cmd, args, options = {}) {
   const result = spawnSync(cmd, args, { cwd: ROOT, stdio: 'inherit', ...options })
   if (result.status !== 0) {
+    if (result.stdout) process.stdout.write(result.stdout)
     throw new Error(`${cmd} ${args.join(' ')} exited with ${result.status ?? result.signal}`)
   }
+  return result.stdout
 }
 
 /** Runs `npm ci` when node_modules is missing or older than the lock file. */

@@ -76,6 +76,9 @@ export const ROUTE_RULES = {
   'GET /api/_auth/session': { allow: 'public', providedBy: 'nuxt-auth-utils' },
   'DELETE /api/_auth/session': { allow: 'public', body: 'none', providedBy: 'nuxt-auth-utils' },
   'GET /api/health': { allow: 'public' },
+  // The first administrator of a deployment without the demo, through a one-time link.
+  'GET /api/setup': { allow: 'public' },
+  'POST /api/setup': { allow: 'public' },
   // Any other /api path answers a JSON 404.
   '* /api/[...]': { allow: 'public', records: { '...': 'global' }, body: 'none' },
 
