@@ -14,6 +14,10 @@ export class NotFoundError extends Error {
 /** The caller may not do this. */
 export class ForbiddenError extends Error {
   override name = 'ForbiddenError'
+  /** Field messages when the refusal is about what a field holds (an address the sender may not use). */
+  constructor(message: string, readonly fieldErrors?: FieldErrors) {
+    super(message)
+  }
 }
 /** The record changed since the caller read it, or its state refuses the change. */
 export class ConflictError extends Error {

@@ -10,21 +10,28 @@ import { caseEmails, emailForDelivery, findEmail, insertEmails, recordAttempt, r
 import { findUploadFile } from '#server/db/repositories/uploads'
 import type { PdfPhoto } from '#server/utils/report-pdf'
 import sharp from 'sharp'
-import { organisationSettings } from '#server/db/repositories/users'
+import { listUsers, organisationSettings } from '#server/db/repositories/users'
 import type { NewEvent } from '#server/domain/cases/case-record'
-import { ConflictError, InvalidStateError, NotFoundError } from '#server/domain/errors'
+import { ConflictError, ForbiddenError, InvalidStateError, NotFoundError } from '#server/domain/errors'
+import { refusedRecipients, refusedRecipientsMessage, reportRecipientList } from '#server/domain/reports/recipients'
 import { buildServiceReport, reportEmailText } from '#server/domain/reports/service-report'
 import type { CaseDto, EmailDto } from '#shared/types/cases'
 import type { UnitDto } from '#shared/types/equipment-dto'
-import type { ReportSendResult, ServiceReport } from '#shared/types/reports'
+import type { ReportRecipient, ReportSendResult, ServiceReport } from '#shared/types/reports'
 import { siteAtmosphere } from '#shared/utils/format'
+import { can } from '#shared/utils/permissions'
 import { knowledgeBaseTitles } from './diagnosis'
 import { cancelJob, defineJob, enqueueJob } from './jobs'
 import type { Actor } from './types'
 
+/** Who the report of a case may go to without an engineer's or admin's say: the site's contacts and the organisation's active people. */
+async function allowedRecipients(organisationId: number, unitId: number): Promise<ReportRecipient[]> {
+  const [contacts, people] = await Promise.all([siteContactsOfUnit(organisationId, unitId), listUsers(organisationId)])
+  return reportRecipientList(contacts, people.filter((p) => p.active))
+}
+
 async function reportOf(c: CaseDto, organisationId: number, stamps?: CacheStamps): Promise<ServiceReport> {
-  const [org, titles, contacts] = await Promise.all([organisationSettings(organisationId), knowledgeBaseTitles(organisationId, stamps), siteContactsOfUnit(organisationId, c.unit.id)])
-  const recipients = contacts.map((k) => ({ name: k.name, email: k.email, preselected: k.receivesReports }))
+  const [org, titles, recipients] = await Promise.all([organisationSettings(organisationId), knowledgeBaseTitles(organisationId, stamps), allowedRecipients(organisationId, c.unit.id)])
   return buildServiceReport(c, { organisation: org.name, timeZone: org.timeZone, atmosphericKpa: siteAtmosphere(c.unit.siteAltitudeM).kpa, titles, recipients })
 }
 
@@ -127,11 +134,20 @@ export async function queueReportEmails(
 
 /**
  * `POST /api/cases/{id}/report/send`: queues the report to the recipients picked on the preview, to
- * one address, or to the site's report contacts (422 when there are none).
+ * one address, or to the site's report contacts (422 when there are none). Picked addresses must be
+ * the site's contacts or the organisation's people unless an engineer or admin sends it: otherwise
+ * 403 naming each refused address, and nothing is queued.
  */
 export async function sendServiceReport(actor: Actor, input: { caseId: number; to?: string; recipients?: string[] }, now: Date): Promise<ReportSendResult> {
   const c = await caseOf(actor.organisationId, input.caseId)
-  const picked = input.recipients?.length ? [...new Set(input.recipients.map((r) => r.toLowerCase()))] : input.to ? [input.to] : undefined
+  const picked = input.recipients?.length ? [...new Set(input.recipients.map((r) => r.toLowerCase()))] : input.to ? [input.to.toLowerCase()] : undefined
+  if (picked && !can(actor.role, 'reports:any-recipient')) {
+    const refused = refusedRecipients(picked, await allowedRecipients(actor.organisationId, c.unit.id), false)
+    if (refused.length) {
+      const message = refusedRecipientsMessage(refused)
+      throw new ForbiddenError(message, { [input.recipients?.length ? 'recipients' : 'to']: [message] })
+    }
+  }
   const queued = await useDb().transaction(async (transaction) => {
     const result = await queueReportEmails(actor, { caseId: c.id, unit: c.unit, to: picked }, transaction)
     if (!result.emailIds.length) throw new InvalidStateError('No one at this site receives reports. Enter an e-mail address to send it to.')

@@ -40,6 +40,7 @@ function dataOf(error: Error): Record<string, unknown> | undefined {
   if (error instanceof UnitError) return { allowed: error.allowed, fieldErrors: { unit: [error.message] } }
   if (error instanceof RankInputError) return { fieldErrors: { testResults: error.issues } }
   if (error instanceof BadInputError && error.fieldErrors) return { fieldErrors: error.fieldErrors }
+  if (error instanceof ForbiddenError && error.fieldErrors) return { fieldErrors: error.fieldErrors }
   if (error instanceof RateLimitedError) return { retryAfterS: error.retryAfterS }
   if (error instanceof ConfirmationNeededError) return { fieldErrors: error.fieldErrors, confirmationNeeded: error.confirmationNeeded }
   if (error instanceof ImplausibleInputError) return { fieldErrors: error.fieldErrors }

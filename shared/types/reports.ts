@@ -33,11 +33,16 @@ export interface ReportPhoto {
   thumbUrl: string | null
 }
 
-/** Someone who may receive the report: the site's contacts, those who receive reports preselected. */
+/**
+ * Someone who may receive the report: the site's contacts (those who receive reports preselected)
+ * and the organisation's people. Other addresses only an engineer or an admin may add.
+ */
 export interface ReportRecipient {
   name: string
   email: string
   preselected: boolean
+  /** 'contact': a contact of the unit's site; 'colleague': a person of the organisation. */
+  kind: 'contact' | 'colleague'
 }
 
 export interface ServiceReport {

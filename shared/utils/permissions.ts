@@ -17,6 +17,8 @@ export const PERMISSIONS = {
   'users:manage': ['admin'],
   'outbox:read': ['admin'],
   'compliance:configure': ['admin'],
+  // Sending a service report to an address that is neither a contact of the site nor a person of the organisation.
+  'reports:any-recipient': ['engineer', 'admin'],
 } as const satisfies Record<string, readonly Role[]>
 
 export type Permission = keyof typeof PERMISSIONS

@@ -136,7 +136,10 @@ test('a phone job on a cascade low stage: leak at a line-tap valve, brazing, nit
   await page.locator(`input[name="photo-${photoId}"]`).check()
   await expect(page.getByRole('heading', { level: 2, name: 'Photos in the report' })).toBeVisible()
   await expect(page.getByRole('checkbox', { name: /Petra Voss/ })).toBeChecked()
-  await page.getByLabel('Other addresses (optional)').fill('lab.lead@example.test')
+  // A technician picks from the site's contacts and the organisation's people; typing another address is for engineers and admins.
+  await expect(page.getByLabel('Other addresses (optional)')).toHaveCount(0)
+  await page.getByText(/People of your organisation/).click()
+  await page.getByRole('checkbox', { name: /Dev Halloran/ }).check()
   await page.getByRole('button', { name: 'Send the report to 2 addresses' }).click()
   await expect(page.getByRole('status').filter({ hasText: 'Queued 2 e-mails' })).toBeVisible()
   await expect.poll(() => outboxMessages().filter((m) => m.includes(`(case ${caseId})`) && m.includes('application/pdf')).length, { timeout: 30_000 }).toBe(2)

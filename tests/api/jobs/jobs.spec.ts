@@ -19,7 +19,8 @@ async function settled(client: ApiClient, id: string, timeoutMs = 20_000): Promi
 
 describe('GET /api/jobs/{id}', () => {
   it('follows a report e-mail from queued to done, with its progress and result', async () => {
-    const tech = await signedIn(DEMO.tech)
+    // An engineer may send to any address (a technician only to the site's contacts and colleagues).
+    const tech = await signedIn(DEMO.engineer)
     const { id } = await openCase(tech, 'Job check: report to the lab manager')
     const sent = await tech.post(`/api/cases/${id}/report/send`, { to: 'lab.manager@example.test' })
     expect(sent.status).toBe(202)
@@ -37,7 +38,7 @@ describe('GET /api/jobs/{id}', () => {
   })
 
   it('answers 404 to another organisation and for an id that names no job, 401 signed out', async () => {
-    const tech = await signedIn(DEMO.tech)
+    const tech = await signedIn(DEMO.engineer)
     const { id } = await openCase(tech, 'Job check: who may read it')
     const jobId = (await tech.post(`/api/cases/${id}/report/send`, { to: 'desk@example.test' })).body.jobIds[0] as string
     expect((await (await signedIn(DEMO.otherTech)).get(`/api/jobs/${jobId}`)).status).toBe(404)
@@ -49,7 +50,7 @@ describe('GET /api/jobs/{id}', () => {
   })
 
   it('a refused delivery is recorded and retried; retrying by hand replaces the waiting retry with a new job', async () => {
-    const tech = await signedIn(DEMO.tech)
+    const tech = await signedIn(DEMO.engineer)
     const { id } = await openCase(tech, 'Job check: an address that cannot exist')
     // The local SMTP fake refuses every address under the reserved .invalid domain (RFC 2606).
     const sent = await tech.post(`/api/cases/${id}/report/send`, { to: 'nobody@nowhere.invalid' })

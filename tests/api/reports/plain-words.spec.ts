@@ -68,9 +68,10 @@ describe('people\'s words only', () => {
   })
 
   it('in the report e-mail', async () => {
-    const sent = await tech.post(`/api/cases/${demoCase.id}/report/send`, { to: 'words.check@example.test' })
-    expect(sent.status).toBe(202)
+    // An admin may send to an address outside the site's contacts.
     const admin = await signedIn(DEMO.admin)
+    const sent = await admin.post(`/api/cases/${demoCase.id}/report/send`, { to: 'words.check@example.test' })
+    expect(sent.status).toBe(202)
     const until = Date.now() + 20_000
     let message: { id: string } | undefined
     while (!message && Date.now() < until) {

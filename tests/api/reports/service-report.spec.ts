@@ -42,7 +42,9 @@ describe('service report of a case', () => {
   })
 
   it('sends the report to a given address, and checks who may', async () => {
-    const res = await tech.post(`/api/cases/${caseId}/report/send`, { to: 'lab.manager@example.test' })
+    // A technician sends to the site's contacts and colleagues only; an engineer to any address.
+    expect((await tech.post(`/api/cases/${caseId}/report/send`, { to: 'lab.manager@example.test' })).status).toBe(403)
+    const res = await (await signedIn(DEMO.engineer)).post(`/api/cases/${caseId}/report/send`, { to: 'lab.manager@example.test' })
     expect(res.status).toBe(202)
     expect(res.body.queued).toBe(1)
     expect(res.body.emails).toContainEqual(expect.objectContaining({ toAddress: 'lab.manager@example.test' }))

@@ -11,6 +11,9 @@ describe('permissions', () => {
     expect(can('technician', 'knowledge:author')).toBe(false)
     expect(can('trainer', 'knowledge:author')).toBe(false)
   })
+  it('lets engineers and admins send a report to any address, not technicians', () => {
+    expect(ROLES.filter((r) => can(r, 'reports:any-recipient'))).toEqual(['engineer', 'admin'])
+  })
   it('refuses everything without a role, and every permission names known roles', () => {
     expect(can(undefined, 'cases:read')).toBe(false)
     for (const roles of Object.values(PERMISSIONS)) for (const r of roles) expect(ROLES).toContain(r)
