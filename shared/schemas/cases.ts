@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { rowId } from './common'
 import { causeSchema, readingSchema, readingUnitSchema, stageSchema, symptomSchema, testSlugSchema, wordEnum } from './diagnosis'
 import { safeText } from './safe-text'
 import { CASE_STATUSES, CONFIRMATION_BASES } from '#shared/types/cases'
@@ -9,7 +10,7 @@ const text = (max: number) => safeText(max)
 /** `POST /api/cases`: open a case on a unit. */
 export const NewCaseSchema = z
   .object({
-    unitId: z.number({ error: 'Pick a unit' }).int().positive(),
+    unitId: rowId('Pick a unit'),
     complaint: text(2000).min(3, 'Describe the complaint in a few words'),
     symptoms: z.array(symptomSchema).max(20).default([]),
   })

@@ -8,6 +8,7 @@
  * default there would silently overwrite a saved value the request never mentioned.
  */
 import { z } from 'zod'
+import { rowId } from './common'
 import { DESIGNATIONS, findRefrigerant, isDesignation } from '#shared/utils/properties'
 import { CUSTOMER_SORTS, EQUIPMENT_CLASSES, SORT_DIRECTIONS, UNIT_SORTS } from '#shared/types/equipment'
 import { NAMEPLATE_BASES } from '#shared/types/equipment-dto'
@@ -208,7 +209,7 @@ export const NameplateRefillSchema = z
     basis: z.enum(NAMEPLATE_BASES, { error: `basis must be one of: ${NAMEPLATE_BASES.join(', ')}` }),
     note: z.string().trim().max(2000, 'Keep it under 2000 characters').optional(),
     /** The case in which the stage was refilled; the case's timeline records it too. */
-    caseId: z.number().int().positive().optional(),
+    caseId: rowId('The case is its number').optional(),
   })
   .strict()
 export type NameplateRefillInput = z.infer<typeof NameplateRefillSchema>

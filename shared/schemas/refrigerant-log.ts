@@ -4,6 +4,7 @@
  * fields with these schemas.
  */
 import { z } from 'zod'
+import { rowId } from './common'
 import { APPLIANCE_TYPES, LEAK_RATE_METHODS } from '#shared/types/compliance'
 import { ADDITION_PURPOSES, CHECK_KINDS, CYLINDER_PURPOSES } from '#shared/types/refrigerant-log'
 import { STAGES } from '#shared/types/diagnosis'
@@ -14,7 +15,7 @@ const enumOf = <const T extends readonly [string, ...string[]]>(label: string, w
   })
 const when = z.iso.datetime({ offset: true, error: 'Give the date and time as ISO 8601, e.g. 2026-03-01T09:30:00Z' }).or(z.iso.date({ error: 'Give the date as YYYY-MM-DD' }))
 const cylinderLabel = z.string({ error: 'The cylinder is its label, e.g. RC-07' }).trim().max(80, 'A cylinder label has at most 80 characters')
-const caseId = z.number({ error: 'The case is its number' }).int().positive()
+const caseId = rowId('The case is its number')
 
 /** `POST /api/units/{id}/refrigerant-log`: refrigerant added to or recovered from one stage. */
 export const LogLineSchema = z

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { rowId } from './common'
 
 /** `POST /api/cases/{id}/report/send`: one address, or none for the site's report contacts. */
 export const SendReportSchema = z
@@ -13,4 +14,4 @@ export const SendReportSchema = z
   .strict()
 
 /** `PUT /api/cases/{id}/report/photos`: the uploads of the case to show in the report and its PDF, in order. */
-export const ReportPhotosSchema = z.object({ uploadIds: z.array(z.number().int().positive()).max(12, 'Pick at most 12 photos for the report') }).strict()
+export const ReportPhotosSchema = z.object({ uploadIds: z.array(rowId('Pick photos by their number')).max(12, 'Pick at most 12 photos for the report') }).strict()

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { rowId } from './common'
 import { causeSchema, quantitySchema, stageSchema, testSlugSchema } from './diagnosis'
 
 const title = z.string({ error: 'Give the exercise a title' }).trim().min(3, 'Give the exercise a title of a few words').max(200, 'Keep the title under 200 characters')
@@ -16,10 +17,10 @@ export const ExerciseStartSchema = z
 /** `POST /api/exercises`: an exercise from a closed case; the start and assignees may follow later. */
 export const NewExerciseSchema = z
   .object({
-    caseId: z.number({ error: 'Pick a closed case' }).int().positive(),
+    caseId: rowId('Pick a closed case'),
     title,
     start: ExerciseStartSchema.optional(),
-    assignees: z.array(z.number().int().positive()).max(200).optional(),
+    assignees: z.array(rowId('Pick people by their number')).max(200).optional(),
   })
   .strict()
 export type NewExerciseInput = z.infer<typeof NewExerciseSchema>
@@ -29,7 +30,7 @@ export const UpdateExerciseSchema = z.object({ title: title.optional(), start: E
 export type UpdateExerciseInput = z.infer<typeof UpdateExerciseSchema>
 
 /** `PUT /api/exercises/{id}/assignees`: everyone the exercise is assigned to. */
-export const AssigneesSchema = z.object({ userIds: z.array(z.number().int().positive()).max(200) }).strict()
+export const AssigneesSchema = z.object({ userIds: z.array(rowId('Pick people by their number')).max(200) }).strict()
 
 /** `POST /api/exercise-attempts/{id}/requests`: ask for a reading or a test. */
 export const AttemptRequestSchema = z.discriminatedUnion('kind', [
