@@ -1,12 +1,12 @@
 // Reading a case record: the full record in one statement, its current state for a change, the
 // case list with filters, and a unit's refrigerant log.
-import { Op, QueryTypes, type Transaction, type WhereOptions } from 'sequelize'
+import { QueryTypes, type Transaction } from 'sequelize'
 import type { CaseClosure, CaseDto, CaseEventDto, CaseListItem, CaseReading, CaseTestResult, EmailDto, RefrigerantTransactionDto } from '#shared/types/cases'
 import type { RepairStepRecord } from '#shared/types/repair-steps'
 import type { RankResponse, Symptom } from '#shared/types/diagnosis'
 import type { UnitDto } from '#shared/types/equipment-dto'
 import type { CaseState } from '#server/domain/cases/case-record'
-import { Customer, RefrigerantTransaction, ServiceCase, Site, Unit, User } from '../models'
+import { RefrigerantTransaction, ServiceCase } from '../models'
 import { findUnit } from './equipment'
 import { uploadUrls } from './uploads'
 
@@ -122,43 +122,66 @@ export interface CaseFilters {
   pageSize: number
 }
 
-/** One page of the organisation's cases, open ones first, with full-text search over complaint and notes. */
+interface CaseListRow {
+  id: number
+  status: CaseListItem['status']
+  complaint: string
+  unit_id: number
+  unit_name: string
+  customer: string
+  technician: string | null
+  opened_at: Date
+  closed_at: Date | null
+  confirmed_causes: CaseListItem['confirmedCauses'] | null
+  top_cause: { cause: CaseListItem['confirmedCauses'][number]['cause']; stage?: CaseListItem['confirmedCauses'][number]['stage']; probability: number } | null
+  total: string
+}
+
+/**
+ * One page of the organisation's cases, open ones first, with full-text search over complaint and
+ * notes. One statement reads only the columns a row shows (the ranking's first cause comes from the
+ * stored top_cause column, never the whole ranking), with the total of the filtered set beside it.
+ */
 export async function findCases(organisationId: number, f: CaseFilters): Promise<{ items: CaseListItem[]; total: number }> {
-  const where: WhereOptions[] = [{ organisationId }]
-  if (f.status) where.push({ status: f.status })
-  if (f.unitId) where.push({ unitId: f.unitId })
-  if (f.technicianId) where.push({ technicianId: f.technicianId })
-  if (f.from) where.push({ openedAt: { [Op.gte]: f.from } })
-  if (f.to) where.push({ openedAt: { [Op.lte]: f.to } })
-  if (f.cause) where.push(ServiceCase.sequelize!.literal(`confirmed_causes @> ${ServiceCase.sequelize!.escape(JSON.stringify([{ cause: f.cause }]))}::jsonb`))
-  if (f.q) where.push(ServiceCase.sequelize!.literal(`search @@ websearch_to_tsquery('english', ${ServiceCase.sequelize!.escape(f.q)})`))
-  const siteWhere = f.customerId ? { customerId: f.customerId } : undefined
-  const order: [unknown, string][] = [[ServiceCase.sequelize!.literal(`CASE WHEN "ServiceCase"."status" = 'open' THEN 0 ELSE 1 END`), 'ASC']]
-  if (f.sort === 'unit') order.push([{ model: Unit, as: 'unit' }, 'name', f.direction.toUpperCase()] as unknown as [unknown, string])
-  else if (f.sort === 'status') order.push(['status', f.direction.toUpperCase()])
-  order.push(['openedAt', f.sort === 'opened' ? f.direction.toUpperCase() : 'DESC'])
-  const { rows, count } = await ServiceCase.findAndCountAll({
-    where: { [Op.and]: where },
-    include: [
-      { model: Unit, as: 'unit', required: true, include: [{ model: Site, as: 'site', required: true, where: siteWhere, include: [{ model: Customer, as: 'customer' }] }] },
-      { model: User, as: 'technician' },
-    ],
-    order: order as never,
-    limit: f.pageSize,
-    offset: (f.page - 1) * f.pageSize,
-    distinct: true,
-  })
-  type Row = ServiceCase & { unit: Unit & { site: Site & { customer: Customer } }; technician: User | null }
+  const bind: unknown[] = [organisationId]
+  const param = (value: unknown) => `$${bind.push(value)}`
+  const where = ['c.organisation_id = $1']
+  if (f.status) where.push(`c.status = ${param(f.status)}`)
+  if (f.unitId) where.push(`c.unit_id = ${param(f.unitId)}`)
+  if (f.technicianId) where.push(`c.technician_id = ${param(f.technicianId)}`)
+  if (f.from) where.push(`c.opened_at >= ${param(f.from)}`)
+  if (f.to) where.push(`c.opened_at <= ${param(f.to)}`)
+  if (f.cause) where.push(`c.confirmed_causes @> ${param(JSON.stringify([{ cause: f.cause }]))}::jsonb`)
+  if (f.q) where.push(`c.search @@ websearch_to_tsquery('english', ${param(f.q)})`)
+  if (f.customerId) where.push(`s.customer_id = ${param(f.customerId)}`)
+  const direction = f.direction === 'asc' ? 'ASC' : 'DESC'
+  // Open cases first (the order of the cases_list_order index), then the chosen sort.
+  const order = ["(c.status <> 'open')"]
+  if (f.sort === 'unit') order.push(`u.name ${direction}`)
+  else if (f.sort === 'status') order.push(`c.status ${direction}`)
+  order.push(`c.opened_at ${f.sort === 'opened' ? direction : 'DESC'}`, 'c.id DESC')
+  const from = `FROM cases c JOIN units u ON u.id = c.unit_id JOIN sites s ON s.id = u.site_id
+    JOIN customers cu ON cu.id = s.customer_id LEFT JOIN users t ON t.id = c.technician_id
+    WHERE ${where.join(' AND ')}`
+  const filterBind = [...bind]
+  const rows = await ServiceCase.sequelize!.query<CaseListRow>(
+    `SELECT c.id, c.status, c.complaint, c.unit_id, u.name AS unit_name, cu.name AS customer, t.name AS technician,
+            c.opened_at, c.closed_at, c.confirmed_causes, c.top_cause, count(*) OVER () AS total
+     ${from} ORDER BY ${order.join(', ')} LIMIT ${param(f.pageSize)} OFFSET ${param((f.page - 1) * f.pageSize)}`,
+    { bind, type: QueryTypes.SELECT },
+  )
+  // A page past the end has no row to carry the total.
+  const total = rows.length
+    ? Number(rows[0]!.total)
+    : Number((await ServiceCase.sequelize!.query<{ n: string }>(`SELECT count(*) AS n ${from}`, { bind: filterBind, type: QueryTypes.SELECT }))[0]!.n)
   return {
-    total: count,
-    items: (rows as Row[]).map((c) => {
-      const top = (c.ranking as RankResponse | null)?.causes[0]
-      return {
-        id: c.id, status: c.status, complaint: c.complaint, unitId: c.unitId, unitName: c.unit.name, customer: c.unit.site.customer.name,
-        technician: c.technician?.name ?? null, openedAt: c.openedAt.toISOString(), closedAt: iso(c.closedAt),
-        confirmedCauses: c.confirmedCauses as CaseListItem['confirmedCauses'], topCause: top ? { cause: top.cause, stage: top.stage, probability: top.probability } : null,
-      }
-    }),
+    total,
+    items: rows.map((c) => ({
+      id: c.id, status: c.status, complaint: c.complaint, unitId: c.unit_id, unitName: c.unit_name, customer: c.customer,
+      technician: c.technician, openedAt: c.opened_at.toISOString(), closedAt: c.closed_at ? c.closed_at.toISOString() : null,
+      confirmedCauses: c.confirmed_causes ?? [],
+      topCause: c.top_cause ? { cause: c.top_cause.cause, stage: c.top_cause.stage, probability: c.top_cause.probability } : null,
+    })),
   }
 }
 

@@ -141,3 +141,24 @@ describe('case list filters', () => {
     expect(otherPeople.map((p) => p.name)).not.toContain(tech.name)
   })
 })
+
+describe('case list rows', () => {
+  it('carry only what the list shows, with the current most likely cause, open cases first and newest first', async () => {
+    const tech = await signedIn(DEMO.tech)
+    const unit = await cascadeUnitWith(tech, 'R170')
+    const opened = (await tech.post('/api/cases', { unitId: unit.id, complaint: 'List row check: cabinet warm', symptoms: ['not-cooling'] })).body
+    const ranked = (await tech.post(`/api/cases/${opened.id}/readings`, { readings: [{ quantity: 'suctionPressure', stage: 'low', value: 2, unit: 'psig' }] })).body
+    const page = (await tech.get('/api/cases?pageSize=100')).body
+    expect(page).toMatchObject({ page: 1, pageSize: 100 })
+    expect(page.items.length).toBeLessThanOrEqual(100)
+    const row = page.items.find((c: { id: number }) => c.id === opened.id)
+    expect(Object.keys(row).sort()).toEqual(['closedAt', 'complaint', 'confirmedCauses', 'customer', 'id', 'openedAt', 'status', 'technician', 'topCause', 'unitId', 'unitName'])
+    const top = ranked.ranking.causes[0]
+    expect(row).toMatchObject({ status: 'open', unitId: unit.id, unitName: unit.name, confirmedCauses: [], closedAt: null, topCause: { cause: top.cause, probability: top.probability } })
+    expect(row.topCause.stage).toBe(top.stage)
+    const order = page.items.map((c: { status: string; openedAt: string }) => [c.status === 'open' ? 0 : 1, -Date.parse(c.openedAt)])
+    expect(order).toEqual([...order].sort((a: number[], b: number[]) => a[0]! - b[0]! || a[1]! - b[1]!))
+    const beyond = (await tech.get(`/api/cases?pageSize=100&page=${Math.ceil(page.total / 100) + 1}`)).body
+    expect(beyond).toMatchObject({ items: [], total: page.total })
+  })
+})
