@@ -146,7 +146,7 @@ test('a draft is submitted, approved by someone else, published, and the earlier
   await expect(page.getByRole('list', { name: 'Knowledge-base changes' })).toContainText('published it again (rollback)')
 })
 
-test('the impact panel shows its progress, then the figures the job worked out; the home then shows the version in use measured', async ({ page }) => {
+test('the impact panel shows its progress, then the figures the job worked out; the knowledge-base page and the engineer home then show the version in use measured', async ({ page }) => {
   await page.setViewportSize(DESKTOP)
   await signIn(page, 'engineer@rimecase.demo')
   await newDraft(page)
@@ -180,4 +180,9 @@ test('the impact panel shows its progress, then the figures the job worked out; 
   await expect(accuracy.getByTestId('accuracy-cases')).toHaveText(String(result.cases))
   await expect(accuracy.getByTestId('accuracy-top1')).toContainText(percent(result.published.top1))
   await expect(accuracy).toContainText('default starting odds')
+  // The engineer's home shows the same figures.
+  await gotoReady(page, '/')
+  const home = page.getByRole('region', { name: 'Accuracy of the version in use' })
+  await expect(home.getByTestId('accuracy-cases')).toHaveText(String(result.cases))
+  await expect(home.getByTestId('accuracy-top3')).toContainText(percent(result.published.top3))
 })
