@@ -54,7 +54,16 @@ export function dutyKindLabel(kind: DutyDto['kind'], form: WordForm = 'short'): 
 export function cylinderPurposeLabel(purpose: CylinderPurpose, form: WordForm = 'short'): string {
   return CYLINDER_PURPOSE_WORDS[purpose]?.[form] ?? String(purpose)
 }
-/** "Commercial refrigeration (retail food, cold storage)". */
-export function applianceTypeLabel(type: ApplianceType): string {
-  return APPLIANCE_TYPE_LABELS[type] ?? String(type)
+/** Appliance types short enough for a select on a phone; the long form says what each covers. */
+export const APPLIANCE_TYPE_SHORT: Readonly<Record<ApplianceType, string>> = {
+  'commercial-refrigeration': 'Commercial refrigeration',
+  'industrial-process-refrigeration': 'Industrial process',
+  'comfort-cooling': 'Comfort cooling',
+  'refrigerated-transport': 'Refrigerated transport',
+  other: 'Other (lab, test equipment)',
+  'residential-light-commercial-ac': 'Home or light-commercial AC',
+}
+/** "Commercial refrigeration (retail food, cold storage)", or "Commercial refrigeration" in the short form. */
+export function applianceTypeLabel(type: ApplianceType, form: WordForm = 'long'): string {
+  return (form === 'short' ? APPLIANCE_TYPE_SHORT[type] : APPLIANCE_TYPE_LABELS[type]) ?? String(type)
 }
