@@ -11,7 +11,7 @@ import type { NameplateRefillInput } from '#shared/schemas/equipment'
 import { chargingCheck, substitutionPlan } from '#shared/utils/calculator'
 import type { SubstitutionBasis } from '#shared/utils/charging'
 import { formatPressure, formatQuantity } from '#shared/utils/format'
-import { PRESSURE_UNITS, findRefrigerant, toKpaAbs, type Designation, type PressureUnit } from '#shared/utils/properties'
+import { PRESSURE_UNITS, findRefrigerant, standingPressureFromCharge, toKpaAbs, type Designation, type PressureUnit } from '#shared/utils/properties'
 import { SUBSTITUTION_BASIS_WORDS } from '#shared/utils/vocabulary'
 import { propertyProblem } from './calculatorViews'
 import { parseDecimal } from './decimal'
@@ -110,6 +110,23 @@ export function substitutionView(form: SubstitutionForm, atmosphereKpa: number):
 /** The design pressure a picked stage brings to the planner, in absolute kPa as the nameplate record keeps it (empty when unknown). */
 export function designPressureFields(stage: Pick<UnitStageDto, 'designPressureKpa'>): { designPressure: string; designUnit: PressureUnit } | Record<string, never> {
   return stage.designPressureKpa !== null ? { designPressure: String(Math.round(stage.designPressureKpa * 10) / 10), designUnit: 'kPa' } : {}
+}
+
+/**
+ * Where a stage's nameplate charge stands at the room temperature read, from its current record (so a
+ * stage just refilled with another refrigerant shows its new fill), and whether a gauge can show that
+ * charge at all (not when it is partly liquid there). Undefined when the record lacks the figures.
+ */
+export function nameplateStanding(stage: Pick<UnitStageDto, 'refrigerant' | 'chargeG' | 'volumeL'>, ambientC: number | undefined): { pressureKpa: number; measurable: boolean } | undefined {
+  const info = findRefrigerant(stage.refrigerant)
+  if (!info || ambientC === undefined || !stage.chargeG || !stage.volumeL) return undefined
+  try {
+    const r = standingPressureFromCharge({ designation: info.designation, ambientC, volumeL: stage.volumeL, chargeG: stage.chargeG })
+    return { pressureKpa: r.pressureKpa, measurable: r.phase === 'gas' || r.phase === 'supercritical' }
+  } catch (error) {
+    propertyProblem(error)
+    return undefined
+  }
 }
 
 /** What a page opened from a case brings to the calculator's cards: the room temperature read and the gauge unit in use. */

@@ -91,6 +91,9 @@ for (const [size, viewport] of [['phone', PHONE], ['desktop', DESKTOP_WIDE]] as 
     await expect(timeline).toContainText('Same standing pressure plan for 12 L')
     await expect(timeline).toContainText('Cylinder ETY-22')
 
+    // The standing pressure to charge to now follows the stage's new fill.
+    await expect(charge).toContainText('Low stage · R1150, 154 g')
+    await expect(charge).toContainText('charge to this')
     // The calculator from the case: the stage (now R1150, 153.8 g), the room temperature, the gauge unit and the design pressure come along.
     await page.getByRole('region', { name: 'Standing pressure to charge to' }).getByRole('link', { name: 'Plan or follow the charge in the calculator' }).click()
     await expect(page.getByRole('heading', { level: 1, name: 'Calculator' })).toBeVisible()

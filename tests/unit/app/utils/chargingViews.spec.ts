@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import {
-  chargingView, designPressureFields, planRecordBody, prefillFromQuery, substitutionView, type ChargingForm, type SubstitutionForm,
+  chargingView, designPressureFields, nameplateStanding, planRecordBody, prefillFromQuery, substitutionView, type ChargingForm, type SubstitutionForm,
 } from '~/utils/chargingViews'
 
 // Figures: R13 (Platzer 1990) and R1150 (Smukala 2000) EOS as computed with CoolProp 8.0.0.
@@ -98,5 +98,17 @@ describe('planRecordBody', () => {
     const plan = substitutionView({ ...sub, to: 'R170', volumeL: '1', basis: 'mass' }, 101.325).result!
     expect(plan.chargeTo).toBeNull()
     expect(planRecordBody(plan, { unitId: 4, unitName: 'F', stage: 'low' }, '').note).toMatch(/weigh it in/)
+  })
+})
+
+describe('nameplateStanding', () => {
+  it('the nameplate charge at the room temperature read, from the stage record; a partly liquid fill is not for the gauge', () => {
+    // 300 g of ethane in 10 L at 20 °C: 1992.3 kPa abs, gas (Bücker & Wagner 2006 EOS via CoolProp 8.0.0).
+    expect(nameplateStanding({ refrigerant: 'R170', chargeG: 300, volumeL: 10 }, 20)).toEqual({ pressureKpa: expect.closeTo(1992.3, 0), measurable: true })
+    // 520 g of R404A in 6.2 L at 22 °C is far denser than its saturated vapour: two-phase, the pressure is the saturation pressure.
+    expect(nameplateStanding({ refrigerant: 'R404A', chargeG: 520, volumeL: 6.2 }, 22)).toMatchObject({ measurable: false })
+    expect(nameplateStanding({ refrigerant: 'R170', chargeG: null, volumeL: 10 }, 20)).toBeUndefined()
+    expect(nameplateStanding({ refrigerant: 'R170', chargeG: 300, volumeL: 10 }, undefined)).toBeUndefined()
+    expect(nameplateStanding({ refrigerant: 'R9999', chargeG: 300, volumeL: 10 }, 20)).toBeUndefined()
   })
 })
