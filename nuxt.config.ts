@@ -3,7 +3,7 @@ export default defineNuxtConfig({
   compatibilityDate: '2026-07-01',
   devtools: { enabled: false },
   telemetry: false,
-  modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@vite-pwa/nuxt'],
+  modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@vite-pwa/nuxt', 'nuxt-security'],
   css: [
     '@fontsource/atkinson-hyperlegible-next/400.css',
     '@fontsource/atkinson-hyperlegible-next/700.css',
@@ -92,6 +92,54 @@ export default defineNuxtConfig({
     },
     client: { installPrompt: true },
     devOptions: { enabled: false },
+  },
+  // Response headers and the content security policy (nuxt-security). Pages get a fresh nonce per
+  // request on every script tag Nuxt writes; scripts those load are trusted through 'strict-dynamic',
+  // nothing inline or from another origin runs. Styles allow inline (Vue style bindings, chart sizes).
+  // Images may be data: or blob: (photo previews before upload); the service worker is our own.
+  // API answers carry a policy of their own (server/plugins/api-headers.ts). Our own body limits,
+  // rate limits (in PostgreSQL), content-type and Origin checks stay in the route guard, so the
+  // module's overlapping middlewares are off.
+  security: {
+    nonce: true,
+    sri: false,
+    removeLoggers: false,
+    headers: {
+      contentSecurityPolicy: {
+        'default-src': ["'self'"],
+        'base-uri': ["'none'"],
+        'script-src': ["'self'", "'strict-dynamic'", "'nonce-{{nonce}}'"],
+        'script-src-attr': ["'none'"],
+        'style-src': ["'self'", "'unsafe-inline'"],
+        'img-src': ["'self'", 'data:', 'blob:'],
+        'font-src': ["'self'", 'data:'],
+        'connect-src': ["'self'"],
+        'worker-src': ["'self'"],
+        'manifest-src': ["'self'"],
+        'media-src': ["'self'", 'blob:'],
+        'object-src': ["'none'"],
+        'frame-src': ["'self'"],
+        'frame-ancestors': ["'none'"],
+        'form-action': ["'self'"],
+        // Served on loopback over http by npm start; an https site upgrades nothing it does not already use.
+        'upgrade-insecure-requests': false,
+      },
+      xFrameOptions: 'DENY',
+      xContentTypeOptions: 'nosniff',
+      referrerPolicy: 'strict-origin-when-cross-origin',
+      crossOriginOpenerPolicy: 'same-origin',
+      crossOriginResourcePolicy: 'same-origin',
+      crossOriginEmbedderPolicy: 'credentialless',
+      // Photos come through the file picker (which may open the camera app); nothing reads devices directly.
+      permissionsPolicy: { camera: [], microphone: [], geolocation: [], 'display-capture': [], fullscreen: [] },
+    },
+    hidePoweredBy: true,
+    requestSizeLimiter: false,
+    rateLimiter: false,
+    xssValidator: false,
+    corsHandler: false,
+    allowedMethodsRestricter: false,
+    csrf: false,
   },
   typescript: { strict: true },
 })

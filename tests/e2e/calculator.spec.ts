@@ -1,6 +1,6 @@
 import AxeBuilder from '@axe-core/playwright'
-import { expect, test, type Page } from '@playwright/test'
-import { DESKTOP, PHONE, showNavigation, signIn } from './helpers'
+import { type Page } from '@playwright/test'
+import { DESKTOP, PHONE, expect, showNavigation, signIn, test } from './helpers'
 
 async function expectNoSeriousA11yIssues(page: Page) {
   const results = await new AxeBuilder({ page }).analyze()

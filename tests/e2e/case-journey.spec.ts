@@ -1,8 +1,8 @@
 import { readFileSync, readdirSync } from 'node:fs'
 import { join } from 'node:path'
 import AxeBuilder from '@axe-core/playwright'
-import { expect, test, type Page } from '@playwright/test'
-import { PHONE, gotoReady, showNavigation, signIn, waitForHydration } from './helpers'
+import { type Page } from '@playwright/test'
+import { PHONE, expect, gotoReady, showNavigation, signIn, test, waitForHydration } from './helpers'
 
 async function addReading(page: Page, where: string, quantity: string, value: string, unit?: string) {
   const form = page.getByRole('form', { name: 'Add a reading' })

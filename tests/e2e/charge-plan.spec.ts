@@ -3,8 +3,8 @@
 // case brings the stage's design pressure and the room temperature read; the unit page saves a plan
 // on the unit alone; a trainer may plan but sees no save button. Each run makes its own unit, so
 // the demo units other tests read keep their nameplate fills.
-import { expect, test, type APIRequestContext, type Page } from '@playwright/test'
-import { PHONE, gotoReady, signIn } from './helpers'
+import { type APIRequestContext, type Page } from '@playwright/test'
+import { PHONE, expect, gotoReady, signIn, test } from './helpers'
 
 const DESKTOP_WIDE = { width: 1366, height: 900 }
 const tag = () => Math.random().toString(36).slice(2, 8).toUpperCase()

@@ -1,4 +1,34 @@
-import { expect, type Page } from '@playwright/test'
+import { test as base, expect, type Page } from '@playwright/test'
+
+/**
+ * Every browser test runs with this `test`: it watches each page of the test's browser context for
+ * Content Security Policy violations (the `securitypolicyviolation` event, and the browser's own
+ * console message when it refuses something) and fails the test when there was any, naming them.
+ */
+export const test = base.extend<{ cspViolations: string[] }>({
+  cspViolations: [
+    async ({ context }, use) => {
+      const violations: string[] = []
+      await context.addInitScript(() => {
+        document.addEventListener('securitypolicyviolation', (e) => {
+          console.error(`[csp-violation] ${e.violatedDirective} refused ${e.blockedURI || 'inline code'} (${e.sourceFile || 'page'}:${e.lineNumber})`)
+        })
+      })
+      const watch = (page: Page) => {
+        page.on('console', (message) => {
+          const text = message.text()
+          if (text.startsWith('[csp-violation]') || /Content Security Policy/i.test(text)) violations.push(`${page.url()}: ${text}`)
+        })
+      }
+      context.pages().forEach(watch)
+      context.on('page', watch)
+      await use(violations)
+      expect(violations, 'Content Security Policy violations on the pages of this test').toEqual([])
+    },
+    { auto: true },
+  ],
+})
+export { expect }
 
 export const DEMO_PASSWORD = 'rimecase-demo'
 export const PHONE = { width: 390, height: 844 }

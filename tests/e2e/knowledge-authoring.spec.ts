@@ -1,5 +1,5 @@
-import { expect, test, type Browser, type Page } from '@playwright/test'
-import { DESKTOP, gotoReady, signIn } from './helpers'
+import { type Browser, type Page } from '@playwright/test'
+import { DESKTOP, expect, gotoReady, signIn, test } from './helpers'
 
 // Runs in order: the review test publishes a version and rolls back, the impact test compares with
 // whatever is published.

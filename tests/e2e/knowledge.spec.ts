@@ -1,5 +1,4 @@
-import { expect, test } from '@playwright/test'
-import { DESKTOP, signIn } from './helpers'
+import { DESKTOP, expect, signIn, test } from './helpers'
 
 test('an engineer edits a finding of a new draft: structured and JSON views follow each other, a wrong value is refused with its field named', async ({ page }) => {
   await page.setViewportSize(DESKTOP)

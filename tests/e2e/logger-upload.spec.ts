@@ -1,6 +1,5 @@
-import { expect, test } from '@playwright/test'
 import { isoTime, pullDownSeries } from '../unit/server/domain/logger/fixtures'
-import { DESKTOP, gotoReady, signIn } from './helpers'
+import { DESKTOP, expect, gotoReady, signIn, test } from './helpers'
 
 // 6 h of minute readings with a 90 min plateau at -50 °C on the way to -80 °C (invented data).
 const cabinet = pullDownSeries({ fromC: 20, toC: -80, rateKPerHour: 30, stall: { levelC: -50, minutes: 90 } }, 360)

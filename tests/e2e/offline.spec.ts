@@ -1,5 +1,4 @@
-import { expect, test } from '@playwright/test'
-import { PHONE, signIn, waitForHydration } from './helpers'
+import { PHONE, expect, signIn, test, waitForHydration } from './helpers'
 
 // The only tests that let the app's service worker run (the others block it, see playwright.config.ts).
 test.use({ serviceWorkers: 'allow' })

@@ -1,6 +1,6 @@
 import AxeBuilder from '@axe-core/playwright'
-import { expect, test, type Page } from '@playwright/test'
-import { signIn, waitForHydration } from './helpers'
+import { type Page } from '@playwright/test'
+import { expect, signIn, test, waitForHydration } from './helpers'
 import { isDynamic, pageRoutes } from './page-routes'
 
 // Every page of the app, opened by full page load at a phone and a desk size: the server's HTML must

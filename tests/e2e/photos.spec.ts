@@ -1,6 +1,5 @@
-import { expect, test } from '@playwright/test'
 import sharp from 'sharp'
-import { PHONE, gotoReady, signIn } from './helpers'
+import { PHONE, expect, gotoReady, signIn, test } from './helpers'
 
 test('a full-size phone photo is made smaller in the browser before it is sent', async ({ page }) => {
   test.setTimeout(120_000)

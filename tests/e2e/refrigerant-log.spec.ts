@@ -1,5 +1,4 @@
-import { expect, test } from '@playwright/test'
-import { DESKTOP, PHONE, gotoReady, showNavigation, signIn } from './helpers'
+import { DESKTOP, PHONE, expect, gotoReady, showNavigation, signIn, test } from './helpers'
 
 test('a technician opens a unit\'s refrigerant log, sees its F-gas view and logs a recovery into a cylinder', async ({ page }) => {
   await page.setViewportSize(DESKTOP)

@@ -5,9 +5,9 @@
 // pages are rendered to images and checked for the figures and the photo they must show.
 import { readFileSync, readdirSync, writeFileSync } from 'node:fs'
 import { basename, join } from 'node:path'
-import { expect, test, type Page } from '@playwright/test'
+import { type Page } from '@playwright/test'
 import sharp from 'sharp'
-import { PHONE, gotoReady, signIn } from './helpers'
+import { PHONE, expect, gotoReady, signIn, test } from './helpers'
 
 async function addReading(page: Page, where: string, quantity: string, value: string, unit?: string) {
   const form = page.getByRole('form', { name: 'Add a reading' })

@@ -1,6 +1,6 @@
 import AxeBuilder from '@axe-core/playwright'
-import { expect, test, type APIRequestContext, type Page } from '@playwright/test'
-import { DEMO_PASSWORD, PHONE, signIn } from './helpers'
+import { type APIRequestContext, type Page } from '@playwright/test'
+import { DEMO_PASSWORD, PHONE, expect, signIn, test } from './helpers'
 
 async function expectNoSeriousA11yIssues(page: Page) {
   const results = await new AxeBuilder({ page }).analyze()

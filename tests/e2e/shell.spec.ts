@@ -1,6 +1,5 @@
 import AxeBuilder from '@axe-core/playwright'
-import { expect, test } from '@playwright/test'
-import { DESKTOP, PHONE, showNavigation, signIn } from './helpers'
+import { DESKTOP, PHONE, expect, showNavigation, signIn, test } from './helpers'
 
 const ROLE_NAV: Record<string, { email: string; sees: string[]; hidden: string[] }> = {
   technician: { email: 'tech@rimecase.demo', sees: ['Home', 'Cases', 'Units', 'Calculator'], hidden: ['Users', 'Outbox'] },

@@ -1,5 +1,5 @@
-import { expect, request, test, type APIRequestContext } from '@playwright/test'
-import { DEMO_PASSWORD, DESKTOP, PHONE, gotoReady, signIn, waitForHydration } from './helpers'
+import { request, type APIRequestContext } from '@playwright/test'
+import { DEMO_PASSWORD, DESKTOP, PHONE, expect, gotoReady, signIn, test, waitForHydration } from './helpers'
 
 async function api(email: string, baseURL: string): Promise<APIRequestContext> {
   const context = await request.newContext({ baseURL })

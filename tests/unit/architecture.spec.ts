@@ -60,3 +60,13 @@ describe('imports', () => {
     expect(graph.circular().map((cycle) => cycle.map((f) => relative(ROOT, join(ROOT, f))).join(' > '))).toEqual([])
   }, 60_000)
 })
+
+describe('browser tests', () => {
+  it('all take `test` from tests/e2e/helpers.ts, which fails a test on any Content Security Policy violation', () => {
+    const specs = filesUnder('tests/e2e').filter((f) => f.endsWith('.spec.ts'))
+    expect(specs.length).toBeGreaterThan(0)
+    const own = specs.filter((f) => /import \{[^}]*\btest\b[^}]*\} from '@playwright\/test'/.test(source(f)) || !/import \{[^}]*\btest\b[^}]*\} from '\.\/helpers'/.test(source(f)))
+    expect(own).toEqual([])
+  })
+})
+
