@@ -1,3 +1,4 @@
+import { fileURLToPath } from 'node:url'
 // Rimecase Nuxt configuration. Versions are pinned for Node 20 (see README "Stack").
 export default defineNuxtConfig({
   compatibilityDate: '2026-07-01',
@@ -140,6 +141,18 @@ export default defineNuxtConfig({
     corsHandler: false,
     allowedMethodsRestricter: false,
     csrf: false,
+  },
+  hooks: {
+    // The browser's zod comes through app/lib/zod-jitless.ts, which turns off zod's eval probe before
+    // any schema is built (the content security policy refuses eval).
+    'vite:extendConfig'(config, { isClient }) {
+      if (!isClient) return
+      const mutable = config as { resolve?: { alias?: unknown } }
+      const resolve = (mutable.resolve ??= {})
+      const zodJitless = { find: /^zod$/, replacement: fileURLToPath(new URL('./app/lib/zod-jitless.ts', import.meta.url)) }
+      const alias = resolve.alias
+      resolve.alias = Array.isArray(alias) ? [zodJitless, ...alias] : [zodJitless, ...Object.entries(alias ?? {}).map(([find, replacement]) => ({ find, replacement }))]
+    },
   },
   typescript: { strict: true },
 })
