@@ -146,7 +146,8 @@ export default defineNuxtConfig({
     // The browser's zod comes through app/lib/zod-jitless.ts, which turns off zod's eval probe before
     // any schema is built (the content security policy refuses eval).
     'vite:extendConfig'(config, { isClient }) {
-      if (!isClient) return
+      // Component tests (vitest) run without the policy and set their own aliases afterwards: left alone.
+      if (!isClient || process.env.VITEST) return
       const mutable = config as { resolve?: { alias?: unknown } }
       const resolve = (mutable.resolve ??= {})
       const zodJitless = { find: /^zod$/, replacement: fileURLToPath(new URL('./app/lib/zod-jitless.ts', import.meta.url)) }
