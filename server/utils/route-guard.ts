@@ -103,7 +103,11 @@ async function assertBody(event: H3Event, rule: RouteRule): Promise<void> {
   }
   const tooLarge = () => new TooLargeError(`The request is larger than ${Math.round(limit / 1024 / 1024)} MB`)
   if (Number.isFinite(length) && length > limit) {
-    setResponseHeader(event, 'connection', 'close')
+    // A client sending the whole body before it reads the answer would see its connection reset
+    // (EPIPE) rather than the 413 if the socket closed under it: up to a bounded excess the rest is
+    // read and dropped and the connection stays usable; past that it is closed after the answer.
+    if (length - limit > DISCARD_AT_MOST) setResponseHeader(event, 'connection', 'close')
+    else event.node.req.resume()
     throw tooLarge()
   }
   if (chunked && !Number.isFinite(length)) {

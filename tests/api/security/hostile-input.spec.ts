@@ -172,7 +172,8 @@ async function send(client: ApiClient, method: string, path: string, wire: WireB
     await res.arrayBuffer()
     return { status: res.status }
   } catch (error) {
-    return { error: error instanceof Error ? `${error.name}: ${error.message}` : String(error) }
+    const cause = error instanceof Error && error.cause instanceof Error ? ` (${(error.cause as NodeJS.ErrnoException).code ?? error.cause.name}: ${error.cause.message})` : ''
+    return { error: error instanceof Error ? `${error.name}: ${error.message}${cause}` : String(error) }
   }
 }
 
