@@ -1,6 +1,7 @@
 #!/usr/bin/env node
 // `npm run restore -- <backup folder> [--force]`: puts a backup made by `npm run backup` back into
-// the database and upload store `npm start` uses. Stop the app first. It refuses to overwrite a
+// the database and upload store `npm start` uses. Stop the app first: it refuses while anything is
+// connected to the database. It refuses to overwrite a
 // database with tables or an upload folder with files unless --force is given; the upload folder
 // it replaces is kept beside the new one, renamed.
 import { parseArgs } from 'node:util'

@@ -144,7 +144,11 @@ export function prefillFromQuery(query: Record<string, unknown>): Prefill {
 /** Where a chosen plan is saved: a unit's stage, and the case it was planned in when there is one. */
 export interface PlanSaveTarget { unitId: number; unitName: string; stage: Stage; caseId?: number }
 
-/** The body of `POST /api/units/{id}/nameplate` that keeps a chosen plan as the stage's new fill, its figures in words in the note. */
+/**
+ * The body of `POST /api/units/{id}/nameplate` that keeps a chosen plan as the stage's new fill: its
+ * figures in words in the note, and, when its standing pressure measures the charge, that pressure and
+ * its ambient as figures, which become the stage's reference standing pressure.
+ */
 export function planRecordBody(plan: SubstitutionDto, target: PlanSaveTarget, ownNote: string): NameplateRefillInput {
   const grams = formatQuantity(plan.chargeG, 'g', 0)
   const chargeTo = plan.chargeTo
@@ -152,8 +156,12 @@ export function planRecordBody(plan: SubstitutionDto, target: PlanSaveTarget, ow
     : 'weigh it in: its standing pressure cannot measure it'
   const figures = `${SUBSTITUTION_BASIS_WORDS[plan.basis]} plan for ${plan.volumeL} L: ${grams} of ${plan.to.designation} for the nameplate ${formatQuantity(plan.from.chargeG, 'g', 0)} of ${plan.from.designation}; ${chargeTo}.`
   const note = [figures, ownNote.trim()].filter(Boolean).join(' ').slice(0, 2000)
+  const standing = plan.chargeTo && plan.standingPressureKpa >= 1 && plan.standingPressureKpa <= 15_000 && plan.ambientC >= -40 && plan.ambientC <= 60
+    ? { standingPressureKpa: Math.round(plan.standingPressureKpa * 10) / 10, ambientC: plan.ambientC }
+    : {}
   return {
     stage: target.stage, refrigerant: plan.to.designation, chargeG: Math.round(plan.chargeG * 10) / 10, basis: plan.basis, note,
+    ...standing,
     ...(target.caseId !== undefined ? { caseId: target.caseId } : {}),
   }
 }

@@ -144,11 +144,24 @@ export async function restore({ folder, databaseUrl, uploadDir, uploadsInFolder 
   }
   const dumpFile = join(folder, manifest.database.file)
   const schemas = dumpedSchemas(bin, dumpFile)
-  step('Emptying the database')
   const { default: pg } = await import('pg')
-  const client = new pg.Client({ connectionString: databaseUrl })
+  const client = new pg.Client({ connectionString: databaseUrl, application_name: 'rimecase-restore' })
   await client.connect()
   try {
+    // A running app keeps connections open (its job worker polls every second): replacing the
+    // database under it would mix old and new records, so the restore waits for it to be stopped.
+    const { rows } = await client.query(
+      `SELECT coalesce(nullif(application_name, ''), 'unnamed') AS name, count(*)::int AS n FROM pg_stat_activity
+        WHERE datname = current_database() AND pid <> pg_backend_pid() AND backend_type = 'client backend' GROUP BY 1 ORDER BY 1`,
+    )
+    const others = rows.reduce((sum, r) => sum + r.n, 0)
+    if (others) {
+      throw new RefusedError(
+        `The database is in use: ${others} other connection${others === 1 ? '' : 's'} (${rows.map((r) => `${r.n} × ${r.name}`).join(', ')}). ` +
+          'Stop the app (and close anything else connected to it) before restoring.',
+      )
+    }
+    step('Emptying the database')
     const quoted = (s) => `"${s.replace(/"/g, '""')}"`
     await client.query('BEGIN')
     for (const schema of schemas) await client.query(`DROP SCHEMA IF EXISTS ${quoted(schema)} CASCADE`)

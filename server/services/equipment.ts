@@ -101,12 +101,17 @@ export async function refillStage(actor: Actor, input: NameplateRefillInput & { 
     await insertRefill({
       organisationId: actor.organisationId, unitId: unit.id, stage: plan.stage, refrigerant: plan.refrigerant, chargeG: plan.chargeG,
       previousRefrigerant: plan.previousRefrigerant, previousChargeG: plan.previousChargeG, basis: plan.basis, note: plan.note,
+      standingPressureKpa: plan.given?.standingPressureKpa ?? null, ambientC: plan.given?.ambientC ?? null,
+      referenceStandingPressureKpa: plan.reference?.standingPressureKpa ?? null, referenceAmbientC: plan.reference?.ambientC ?? null,
       caseId: input.caseId ?? null, byUserId: actor.id, at: now,
     }, transaction)
     if (input.caseId !== undefined) {
       await appendEvents(input.caseId, actor.id, [{
         type: 'nameplate-changed',
-        payload: { stage: plan.stage, refrigerant: plan.refrigerant, chargeG: plan.chargeG, previousRefrigerant: plan.previousRefrigerant, previousChargeG: plan.previousChargeG, basis: plan.basis, note: plan.note, warnings: plan.warnings },
+        payload: {
+          stage: plan.stage, refrigerant: plan.refrigerant, chargeG: plan.chargeG, previousRefrigerant: plan.previousRefrigerant, previousChargeG: plan.previousChargeG,
+          basis: plan.basis, note: plan.note, ...(plan.given ? { standingPressureKpa: plan.given.standingPressureKpa, ambientC: plan.given.ambientC } : {}), warnings: plan.warnings,
+        },
       }], transaction, now)
     }
   })

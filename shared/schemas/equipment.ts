@@ -210,6 +210,22 @@ export const NameplateRefillSchema = z
     note: z.string().trim().max(2000, 'Keep it under 2000 characters').optional(),
     /** The case in which the stage was refilled; the case's timeline records it too. */
     caseId: rowId('The case is its number').optional(),
+    /**
+     * Where the new fill stands (absolute) at a stated ambient, planned or measured: it becomes the
+     * stage's reference standing pressure. Without it, a new refrigerant or charge clears the old one.
+     */
+    standingPressureKpa: measured('Standing pressure', 'kPa absolute', 1, 15_000).optional(),
+    ambientC: measured('Ambient', '°C', -40, 60).optional(),
   })
   .strict()
+  .superRefine((s, ctx) => {
+    const hasPressure = s.standingPressureKpa != null
+    if (hasPressure !== (s.ambientC != null)) {
+      ctx.addIssue({
+        code: 'custom',
+        path: [hasPressure ? 'ambientC' : 'standingPressureKpa'],
+        message: 'Give the standing pressure and the ambient temperature it stands at together, or neither',
+      })
+    }
+  })
 export type NameplateRefillInput = z.infer<typeof NameplateRefillSchema>

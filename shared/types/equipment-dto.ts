@@ -45,6 +45,9 @@ export interface NameplateRecordDto {
   previousChargeG: number | null
   basis: NameplateBasis
   note: string
+  /** Where the new fill stands (absolute kPa) at `ambientC`: the stage's reference from then on; null when none was given. */
+  standingPressureKpa: number | null
+  ambientC: number | null
   caseId: number | null
   by: string | null
   at: string

@@ -131,6 +131,22 @@ for (const [size, viewport] of [['phone', PHONE], ['desktop', DESKTOP_WIDE]] as 
     await expect(history).toContainText(/Low stage: R13 600 g → R1150 1\d\d g/)
     await expect(history).toContainText('Same standing pressure plan for 12 L')
     await expect(history).toContainText('at 20.0 °C room')
+    // The plan's standing pressure, kept as figures, is the stage's reference from now on.
+    await expect(history).toContainText(/Stands at [\d.]+ kPag \([\d.]+ kPa abs\) at 20\.0 °C: the stage's reference standing pressure from then on/)
+
+    // A refill recorded by hand with the standing pressure read after charging: half the pair is
+    // refused in the form, the whole pair is kept (1000 kPag at sea level = 1101.3 kPa abs, ISO 2533).
+    await history.getByRole('button', { name: 'Record a refill with another refrigerant' }).click()
+    const refill = history.getByRole('form', { name: 'Record a refill' })
+    await refill.getByLabel('Now filled with').selectOption('R1150')
+    await refill.getByLabel('Charge (g)').fill('160')
+    await refill.getByRole('textbox', { name: 'Standing pressure' }).fill('1000')
+    await refill.getByRole('button', { name: 'Save on the nameplate record' }).click()
+    await expect(refill.getByRole('alert')).toContainText('Give the standing pressure and the ambient it was read at together')
+    await refill.getByRole('textbox', { name: 'Ambient (°C)' }).fill('21')
+    await refill.getByRole('button', { name: 'Save on the nameplate record' }).click()
+    await expect(history).toContainText('Stands at 1000 kPag (1101 kPa abs) at 21.0 °C')
+    await expectNoSidewaysScroll(page)
     expect(problems).toEqual([])
 
     const trainerContext = await browser.newContext({ viewport })

@@ -84,7 +84,8 @@ export function eventDetail(event: Pick<CaseEventDto, 'type'> & Payload, titles:
     case 'step-struck':
       return `${repairStepLabel(p.kind as RepairStepKind)}${onStage(p.stage)} struck out (${str(p.reason)})`
     case 'nameplate-changed':
-      return `${stageLabel(str(p.stage) as Stage)}: ${str(p.previousRefrigerant)} replaced by ${str(p.refrigerant)}${typeof p.chargeG === 'number' ? `, ${formatQuantity(p.chargeG, 'g', 0)}` : ''}${p.note ? `. ${str(p.note)}` : ''}`
+      return `${stageLabel(str(p.stage) as Stage)}: ${str(p.previousRefrigerant)} replaced by ${str(p.refrigerant)}${typeof p.chargeG === 'number' ? `, ${formatQuantity(p.chargeG, 'g', 0)}` : ''}`
+        + `${typeof p.standingPressureKpa === 'number' && typeof p.ambientC === 'number' ? `, standing at ${formatQuantity(p.standingPressureKpa, 'kPa', 0)} at ${formatQuantity(p.ambientC, 'C', 1)}` : ''}${p.note ? `. ${str(p.note)}` : ''}`
     case 'report-photos-set':
       return `${((p.uploadIds as number[] | undefined) ?? []).length} photo(s) in the report`
     case 'test-proposed':

@@ -61,6 +61,11 @@ describe('backup and restore', () => {
     expect(refused.status, refused.out).toBe(3)
     expect(refused.out).toMatch(/not empty.*--force/s)
     expect((await tech.get(`/api/cases/${later.id}`)).status).toBe(200)
+    // So is one while the app still runs on the database, even with --force.
+    const inUse = npmScript('restore', [folder, '--force'])
+    expect(inUse.status, inUse.out).toBe(3)
+    expect(inUse.out).toMatch(/database is in use: \d+ other connections? .*Stop the app/s)
+    expect((await tech.get(`/api/cases/${later.id}`)).status).toBe(200)
 
     await app!.stop()
     app = undefined

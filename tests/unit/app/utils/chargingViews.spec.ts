@@ -91,6 +91,9 @@ describe('planRecordBody', () => {
     expect(body).toMatchObject({ stage: 'low', refrigerant: 'R1150', chargeG: 153.8, basis: 'standing-pressure', caseId: 9 })
     expect(body.note).toMatch(/^Same standing pressure plan for 12 L: 154 g of R1150 for the nameplate 600 g of R13; charge to 137\.6 psig \(\d+\.\d kPa abs\) at 22\.0 °C room\. cylinder 17$/)
     expect(planRecordBody(plan, { unitId: 4, unitName: 'Freezer F-204', stage: 'low' }, '')).not.toHaveProperty('caseId')
+    // The figures too, as the stage's new reference: 137.6 psig + 101.325 kPa = 1050.1 kPa abs (1 psi = 6.894757 kPa, NIST SP 811).
+    expect(body.standingPressureKpa).toBeCloseTo(1050.1, 0)
+    expect(body.ambientC).toBe(22)
   })
 
   it('a plan that is partly liquid at the ambient says to weigh it in', () => {
@@ -98,6 +101,8 @@ describe('planRecordBody', () => {
     const plan = substitutionView({ ...sub, to: 'R170', volumeL: '1', basis: 'mass' }, 101.325).result!
     expect(plan.chargeTo).toBeNull()
     expect(planRecordBody(plan, { unitId: 4, unitName: 'F', stage: 'low' }, '').note).toMatch(/weigh it in/)
+    // Its standing pressure is the saturation pressure whatever the charge: no reference to keep.
+    expect(planRecordBody(plan, { unitId: 4, unitName: 'F', stage: 'low' }, '')).not.toHaveProperty('standingPressureKpa')
   })
 })
 
