@@ -104,7 +104,12 @@ function runningState(ctx: StageContext): void {
   const pumping = ps !== undefined && pd !== undefined ? pd / ps : undefined
   let running: boolean | undefined
   if (amps !== undefined && amps < STOPPED_BELOW_A) {
-    if (pumping !== undefined && pumping >= 2) {
+    if (reported === false) {
+      // Seen stopped and drawing nothing: two direct observations agree. Pressures still apart only
+      // mean it stopped minutes ago, or the stage does not equalise (an expansion valve or a
+      // solenoid closes at standstill).
+      running = false
+    } else if (pumping !== undefined && pumping >= 2) {
       running = true
       sheet.warn(`${lead}: the pressures show the compressor pumping, yet the clamp meter reads ${amps.toFixed(1)} A; check the clamp is round one conductor only. The current is left out.`)
       sheet.drop(f('compressorCurrentA'))

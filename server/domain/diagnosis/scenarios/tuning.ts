@@ -313,4 +313,25 @@ export const TUNING: ScenarioSpec[] = [
     symptoms: ['not-cooling'],
     state: withState(healthy('fridgeR134a', 23), { cabinet: 5.5 }),
   },
+  {
+    id: 'T67', title: 'ULT freezer after service, low stage trips at start, standing more than twice the expected',
+    source: CP('a low stage whose expansion tank was left shut off holds its charge in the rest of the circuit: a standing pressure far above the charge\'s and high-pressure trips at start; air let in during service adds only a little'),
+    unit: 'ultR290R170', expected: { cause: 'expansion-tank-fault', stage: 'low' },
+    symptoms: ['compressor-tripping', 'recently-serviced'],
+    state: withState(healthy('ultR290R170', 22), {
+      cabinet: -76,
+      low: { standingKpa: standingPressureFromCharge({ designation: 'R170', ambientC: 22, volumeL: 2.6, chargeG: 92 }).pressureKpa },
+    }),
+  },
+  {
+    id: 'T68', title: 'ULT freezer, high-stage compressor off on its overload minutes after a trip, gauges not yet equal',
+    source: CP('a compressor seen stopped and drawing no current is stopped, whatever the gauges still show minutes after it stopped'),
+    unit: 'ultR404aR170', expected: { cause: 'compressor-electrical', stage: 'high' },
+    symptoms: ['compressor-tripping', 'not-cooling'],
+    state: withState(healthy('ultR404aR170', 23), {
+      cabinet: -55, cascadeHx: -5,
+      high: { running: false, currentPct: 0, sst: -5, sct: 25, superheat: undefined, subcooling: undefined, dischargeSuperheat: undefined },
+      low: stopped,
+    }),
+  },
 ]

@@ -179,6 +179,15 @@ describe('deriveFacts: running state and contradictions', () => {
     expect(r.warnings.join('\n')).toMatch(/clamp is round one conductor/)
   })
 
+  it('takes a compressor reported stopped and drawing 0 A as stopped, though its gauges are still apart (common practice, no source)', () => {
+    // Minutes after a trip, or on a stage whose valve closes at standstill, suction and discharge stay apart.
+    const state = withState(healthy('freezerR290', 25), { single: { running: false, currentPct: 0 } })
+    const r = deriveFacts(freezer(state))
+    expect(r.facts['single.running']).toBe(false)
+    expect(r.facts['single.compressorCurrentA']).toBe(0)
+    expect(r.warnings.join('\n')).not.toMatch(/clamp/)
+  })
+
   it('warns in words on suction above discharge, and leaves both pressures out', () => {
     const r = deriveFacts({
       unit: { kind: 'single-stage', stages: [{ stage: 'single', refrigerant: 'R290' }] },
