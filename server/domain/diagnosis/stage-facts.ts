@@ -178,8 +178,11 @@ function refrigerantIdentity(ctx: StageContext, nameplate: props.Designation): p
   sheet.set(f('refrigerantOffsetUncertaintyK'), pair.sigmaK)
   sheet.set(f('refrigerantFitK'), Math.abs(fit.offsetK))
   if (fit.best) {
-    sheet.set(f('bestFitRefrigerant'), fit.best.designation)
-    sheet.set(f('bestFitK'), fit.best.k)
+    // The nameplate refrigerant is the best fit when no other curve lies closer (R404A readings
+    // also lie within a kelvin of R507A's curve: that names no other refrigerant).
+    const nameplateFits = Math.abs(fit.offsetK) <= fit.best.k
+    sheet.set(f('bestFitRefrigerant'), nameplateFits ? nameplate : fit.best.designation)
+    sheet.set(f('bestFitK'), nameplateFits ? Math.abs(fit.offsetK) : fit.best.k)
   }
   sheet.set(f('refrigerantMismatch'), fit.mismatch)
   if (fit.mismatch) {

@@ -148,6 +148,20 @@ describe('deriveFacts: refrigerant that fits', () => {
     expect(r.warnings.join('\n')).toMatch(/fits R290, not the nameplate R134a .* worked out for R290/)
   })
 
+  it('names the nameplate refrigerant as the best fit when its own curve fits the pair, although a near-azeotrope lies close by', () => {
+    // R404A and R507A bubble curves lie within about a kelvin of each other (both near-azeotropic blends of R125 and R143a).
+    const r = deriveFacts({
+      unit: { kind: 'single-stage', stages: [{ stage: 'single', refrigerant: 'R404A' }] },
+      readings: [
+        { quantity: 'ambientTemperature', value: 22, unit: 'C' },
+        { quantity: 'standingPressure', stage: 'single', value: Math.round(saturationPressure('R404A', 22).bubbleKpa), unit: 'kPa' },
+      ],
+    })
+    expect(r.facts['single.bestFitRefrigerant']).toBe('R404A')
+    expect(r.facts['single.refrigerantMismatch']).toBe(false)
+    expect(r.facts['single.workingRefrigerant']).toBe('R404A')
+  })
+
   it('leaves the pair alone when the nameplate refrigerant fits', () => {
     const { facts } = deriveFacts({
       unit: { kind: 'single-stage', stages: [{ stage: 'single', refrigerant: 'R404A' }] },
