@@ -11,7 +11,7 @@
  */
 import { z } from 'zod'
 import { CAUSES, STAGES, TESTS, QUANTITIES, isStagelessCause, type Cause } from '#shared/types/diagnosis'
-import { causeSchema, stageSchema, testSlugSchema, wordEnum } from '#shared/schemas/diagnosis'
+import { causeSchema, meteringDeviceSchema, stageSchema, testSlugSchema, wordEnum } from '#shared/schemas/diagnosis'
 import { EQUIPMENT_CLASSES } from '#shared/types/equipment'
 import { NUMERIC_OPERATORS, OPERATORS, type ConditionValue, type NestedCondition, type OperatorName, type TopCondition } from './conditions'
 import { FACT_SPECS, type FactType } from './fact-vocabulary'
@@ -150,6 +150,12 @@ export const testDefSchema = z
     opensSystem: z.boolean(),
     hotWork: z.boolean(),
     stages: z.array(stageSchema).min(1),
+    /**
+     * The metering devices a stage must be fed by for the test to apply (the expansion valve check
+     * needs a valve, the warm capillary test a capillary). Not proposed on a stage the unit record
+     * says is fed otherwise; proposed where the record does not say. Absent: any stage.
+     */
+    meteringDevices: z.array(meteringDeviceSchema).min(1).optional(),
     /** A reading that gives this test's answer; the test is not proposed once that reading is in. */
     answeredBy: wordEnum('quantity', QUANTITIES).optional(),
     /**

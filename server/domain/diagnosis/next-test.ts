@@ -10,7 +10,7 @@
  * that settles the same question always comes first. People read the value in words, from the pair of
  * leading hypotheses the test tells apart best ("Settles a leak against a blockage on the low stage").
  */
-import type { HypothesisRef, ProposedTest, Stage, UnitKind } from '#shared/types/diagnosis'
+import type { HypothesisRef, MeteringDevice, ProposedTest, Stage, UnitKind } from '#shared/types/diagnosis'
 import { STAGES_OF_KIND } from '#shared/schemas/diagnosis'
 import type { KindModel } from './evidence'
 import { testLikelihoods } from './evidence'
@@ -148,17 +148,21 @@ export interface NextTestInput {
   done: ResolvedTestResult[]
   /** Reading keys present (`stage:quantity`). */
   readingsPresent: Set<string>
+  /** The metering device of each stage the unit record names; a test for another device is not proposed there. */
+  meteringDevices?: Partial<Record<Stage, MeteringDevice>>
   /** Only the best `limit` proposals are put in words and returned (all of them when absent). */
   limit?: number
 }
 
-export function proposeTests({ kb, model, kind, posterior, done, readingsPresent, limit }: NextTestInput): ProposedTest[] {
+export function proposeTests({ kb, model, kind, posterior, done, readingsPresent, meteringDevices, limit }: NextTestInput): ProposedTest[] {
   const hNow = entropyBits(posterior)
   const doneKeys = new Set(done.map((d) => `${d.test.slug}@${d.stage}`))
   const candidates: { test: TestDef; stage: Stage; g: Gain; score: number }[] = []
   for (const test of kb.tests) {
     for (const stage of test.stages) {
       if (!STAGES_OF_KIND[kind].includes(stage)) continue
+      const device = meteringDevices?.[stage]
+      if (device && test.meteringDevices && !test.meteringDevices.includes(device)) continue
       if (doneKeys.has(`${test.slug}@${stage}`) || (test.answeredBy && readingsPresent.has(`${stage}:${test.answeredBy}`))) continue
       const g = expectedGain(testLikelihoods(model, test, stage).probs, posterior, hNow)
       if (g.gain < MIN_GAIN_BITS) continue

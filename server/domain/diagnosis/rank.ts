@@ -30,7 +30,8 @@ export async function rankDiagnosis(kb: KnowledgeBase, request: RankRequest, opt
   const priors = startingOdds(kb, model, request, options)
   const tested = testContributions(model, results.diagnosis, run.applied, derived.facts)
   const ranking = rankHypotheses(model, kb.causes, priors.values, [...findingContributions(model, run.applied, derived.facts), ...tested.contributions])
-  const tests = proposeTests({ kb, model, kind, posterior: ranking.posterior, done: results.diagnosis, readingsPresent: derived.readingsPresent, limit: MAX_PROPOSED_TESTS })
+  const meteringDevices = Object.fromEntries(request.unit.stages.flatMap((s) => (s.meteringDevice ? [[s.stage, s.meteringDevice]] : [])))
+  const tests = proposeTests({ kb, model, kind, posterior: ranking.posterior, done: results.diagnosis, readingsPresent: derived.readingsPresent, meteringDevices, limit: MAX_PROPOSED_TESTS })
   const stages = new Set(request.unit.stages.map((s) => s.stage))
   return {
     causes: ranking.causes,

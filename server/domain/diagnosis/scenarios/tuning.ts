@@ -334,4 +334,11 @@ export const TUNING: ScenarioSpec[] = [
       low: stopped,
     }),
   },
+  {
+    id: 'T69', title: 'Fridge charged with R404A instead of R134a, tripping on high pressure',
+    source: CP('a standing pressure on another refrigerant\'s saturation curve identifies the charge; one far above the nameplate curve is more than air let in adds, and a higher-pressure refrigerant trips a system built for a lower one'),
+    unit: 'fridgeR134a', expected: { cause: 'wrong-refrigerant', stage: 'single' },
+    symptoms: ['compressor-tripping'],
+    state: { ambient: 22, cabinet: 10, single: { actual: 'R404A', standingFraction: 1, running: false } },
+  },
 ]

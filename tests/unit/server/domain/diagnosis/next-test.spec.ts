@@ -61,6 +61,15 @@ describe('next test (decision-theoretic troubleshooting, Heckerman, Breese & Rom
     expect(tests.map((t) => t.test)).toEqual(['leak-search'])
   })
 
+  it('does not propose a test for a metering device the stage is not fed by; proposes it where the record does not say', () => {
+    const valveCheck = { ...fakeTest('expansion-valve-check', false), meteringDevices: ['expansion-valve' as const] }
+    const warmCap = { ...fakeTest('warm-capillary-test', false), meteringDevices: ['capillary' as const] }
+    const input = { kb: { tests: [valveCheck, warmCap, fakeTest('leak-search', false)], causes }, model: model(), kind: 'single-stage' as const, posterior: [0.5, 0.5], done: [], readingsPresent: new Set<string>() }
+    expect(proposeTests({ ...input, meteringDevices: { single: 'capillary' } }).map((t) => t.test).sort()).toEqual(['leak-search', 'warm-capillary-test'])
+    expect(proposeTests({ ...input, meteringDevices: { single: 'expansion-valve' } }).map((t) => t.test).sort()).toEqual(['expansion-valve-check', 'leak-search'])
+    expect(proposeTests(input)).toHaveLength(3)
+  })
+
   it('puts only the best few in words when a limit is given, in the same order as the whole list', () => {
     const input = {
       kb: { tests: [fakeTest('nitrogen-pressure-test', true), fakeTest('leak-search', false), fakeTest('standing-pressure-check', false)], causes },
