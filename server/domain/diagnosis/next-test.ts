@@ -23,8 +23,15 @@ export const OPEN_SYSTEM_MINUTES = 120
 export const HOT_WORK_MINUTES = 60
 /** Proposals gaining less than this many bits are noise and left out. */
 const MIN_GAIN_BITS = 0.01
-/** Hypotheses below this probability are not named in a test's value. */
+/**
+ * A test that opens the system (recovery, evacuation, refrigerant lost, risk) is proposed only when it
+ * can settle something material: at least this many bits (common practice, no source).
+ */
+const MIN_GAIN_OPENING_BITS = 0.1
+/** Hypotheses below this probability are not named in a test's value as one of a pair it settles. */
 const NAMED_FROM = 0.03
+/** Nor as the one cause it rules in or out, below this. */
+const MENTIONED_FROM = 0.002
 const SEPARATES_MAX = 3
 
 export function entropyBits(p: ArrayLike<number>): number {
@@ -107,7 +114,36 @@ interface Leading {
 }
 
 /** "Settles a leak against a blockage on the low stage." from the best-separated pair of leading hypotheses. */
-function valueInWords(g: Gain, leading: Leading[], shortNames: Map<string, string>): { text: string; separates: HypothesisRef[] } {
+/** Below this total-variation distance from the rest, a test says nothing about a cause worth naming. */
+const SPEAKS_TO_FROM = 0.15
+
+/** The hypothesis whose outcome distribution differs most from the mixture of all (weighted by √p), if any differs enough. */
+function mostInformed(g: Gain, everyone: Leading[]): Leading | undefined {
+  if (!everyone.length) return undefined
+  const columns = outcomeColumns(g, everyone.map((x) => x.i))
+  const outcomes = g.likelihoods.length
+  const mixture = new Float64Array(outcomes)
+  let mass = 0
+  for (const x of everyone) {
+    const col = columns.get(x.i) as Float64Array
+    for (let o = 0; o < outcomes; o++) mixture[o] = (mixture[o] as number) + x.p * (col[o] as number)
+    mass += x.p
+  }
+  if (mass <= 0) return undefined
+  for (let o = 0; o < outcomes; o++) mixture[o] = (mixture[o] as number) / mass
+  let best: { x: Leading; tv: number; score: number } | undefined
+  for (const x of everyone) {
+    const col = columns.get(x.i) as Float64Array
+    let tv = 0
+    for (let o = 0; o < outcomes; o++) tv += Math.abs((col[o] as number) - (mixture[o] as number))
+    tv /= 2
+    const score = Math.sqrt(x.p) * tv
+    if (!best || score > best.score) best = { x, tv, score }
+  }
+  return best && best.tv >= SPEAKS_TO_FROM ? best.x : undefined
+}
+
+function valueInWords(g: Gain, leading: Leading[], everyone: Leading[], shortNames: Map<string, string>): { text: string; separates: HypothesisRef[] } {
   const columns = outcomeColumns(g, leading.map((x) => x.i))
   let best: { a: Leading; b: Leading; score: number } | undefined
   for (let x = 0; x < leading.length; x++) {
@@ -120,9 +156,12 @@ function valueInWords(g: Gain, leading: Leading[], shortNames: Map<string, strin
   }
   const ref = (h: Hypothesis): HypothesisRef => (h.stage ? { cause: h.cause, stage: h.stage } : { cause: h.cause })
   if (!best || best.score < 0.02) {
-    const top = leading[0]
-    if (!top) return { text: 'Narrows down the causes still open.', separates: [] }
-    return { text: `Tells whether it is ${nameOf(top.h, shortNames, true)}.`, separates: [ref(top.h)] }
+    // No two likely causes are told apart: name the cause whose outcomes stand out most from the
+    // rest, which may be an unlikely one the test rules in or out; never one the test cannot show.
+    const spoken = mostInformed(g, everyone)
+    if (!spoken) return { text: 'Narrows down the causes still open.', separates: [] }
+    const text = spoken === leading[0] ? `Tells whether it is ${nameOf(spoken.h, shortNames, true)}.` : `Rules ${nameOf(spoken.h, shortNames, true)} in or out.`
+    return { text, separates: [ref(spoken.h)] }
   }
   // `leading` is sorted by probability, so `best.a` is the likelier of the pair.
   const { a, b } = best
@@ -165,7 +204,7 @@ export function proposeTests({ kb, model, kind, posterior, done, readingsPresent
       if (device && test.meteringDevices && !test.meteringDevices.includes(device)) continue
       if (doneKeys.has(`${test.slug}@${stage}`) || (test.answeredBy && readingsPresent.has(`${stage}:${test.answeredBy}`))) continue
       const g = expectedGain(testLikelihoods(model, test, stage).probs, posterior, hNow)
-      if (g.gain < MIN_GAIN_BITS) continue
+      if (g.gain < (test.opensSystem || test.hotWork ? MIN_GAIN_OPENING_BITS : MIN_GAIN_BITS)) continue
       candidates.push({ test, stage, g, score: g.gain / testCostMinutes(test) })
     }
   }
@@ -174,12 +213,13 @@ export function proposeTests({ kb, model, kind, posterior, done, readingsPresent
   // that will be shown need it.
   const shortNames = new Map(kb.causes.map((c) => [c.slug, c.short]))
   // Hypotheses worth naming, likeliest first (ties in model order, as the pair search expects).
-  const leading = model.hypotheses
+  const everyone = model.hypotheses
     .map((h, i) => ({ h, i, p: posterior[i] ?? 0 }))
-    .filter((x) => x.p >= NAMED_FROM)
+    .filter((x) => x.p >= MENTIONED_FROM)
     .sort((x, y) => y.p - x.p || x.i - y.i)
+  const leading = everyone.filter((x) => x.p >= NAMED_FROM)
   return candidates.slice(0, limit ?? candidates.length).map(({ test, stage, g, score }): ProposedTest => {
-    const value = valueInWords(g, leading, shortNames)
+    const value = valueInWords(g, leading, everyone, shortNames)
     return {
       test: test.slug,
       stage,

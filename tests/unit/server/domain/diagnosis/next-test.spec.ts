@@ -50,6 +50,13 @@ describe('next test (decision-theoretic troubleshooting, Heckerman, Breese & Rom
     expect(tests[0]?.separates.map((s) => s.cause)).toEqual(['refrigerant-leak', 'restriction'])
   })
 
+  it('proposes a test that opens the system only when it can settle something material', () => {
+    // With the leak at 99 %, the nitrogen test gains about 0.07 bits: not worth opening the system; the leak search still helps.
+    const input = { kb: { tests: [fakeTest('nitrogen-pressure-test', true), fakeTest('leak-search', false)], causes }, model: model(), kind: 'single-stage' as const, done: [], readingsPresent: new Set<string>() }
+    expect(proposeTests({ ...input, posterior: [0.99, 0.01] }).map((t) => t.test)).toEqual(['leak-search'])
+    expect(proposeTests({ ...input, posterior: [0.6, 0.4] }).map((t) => t.test)).toEqual(['leak-search', 'nitrogen-pressure-test'])
+  })
+
   it('costs hot work and opening the system in minutes', () => {
     expect(testCostMinutes({ minutes: 20, opensSystem: true, hotWork: true })).toBeGreaterThan(testCostMinutes({ minutes: 20, opensSystem: true, hotWork: false }))
     expect(testCostMinutes({ minutes: 20, opensSystem: false, hotWork: false })).toBe(20)
@@ -68,6 +75,28 @@ describe('next test (decision-theoretic troubleshooting, Heckerman, Breese & Rom
     expect(proposeTests({ ...input, meteringDevices: { single: 'capillary' } }).map((t) => t.test).sort()).toEqual(['leak-search', 'warm-capillary-test'])
     expect(proposeTests({ ...input, meteringDevices: { single: 'expansion-valve' } }).map((t) => t.test).sort()).toEqual(['expansion-valve-check', 'leak-search'])
     expect(proposeTests(input)).toHaveLength(3)
+  })
+
+  it('names the cause a test speaks to when it tells no two likely causes apart, never a cause it cannot show', () => {
+    const inspection: TestDef = {
+      ...fakeTest('condenser-inspection', false),
+      outcomes: [
+        { slug: 'fouled', label: 'fouled', likelihoods: { healthy: 0.05, default: 0.05, 'condenser-airflow': 0.95, other: 0.1 } },
+        { slug: 'clean', label: 'clean', likelihoods: { healthy: 0.95, default: 0.95, 'condenser-airflow': 0.05, other: 0.9 } },
+      ],
+    }
+    const three: KindModel = {
+      ...model(),
+      hypotheses: [
+        { key: 'compressor-electrical@single', cause: 'compressor-electrical', stage: 'single' },
+        { key: 'condenser-airflow@single', cause: 'condenser-airflow', stage: 'single' },
+        { key: 'refrigerant-leak@single', cause: 'refrigerant-leak', stage: 'single' },
+      ],
+    }
+    const names = [...causes, { slug: 'compressor-electrical' as const, short: 'an electrical fault' }, { slug: 'condenser-airflow' as const, short: 'poor condenser airflow' }]
+    const [proposed] = proposeTests({ kb: { tests: [inspection], causes: names }, model: three, kind: 'single-stage', posterior: [0.97, 0.01, 0.02], done: [], readingsPresent: new Set() })
+    expect(proposed?.value).toBe('Rules poor condenser airflow in or out.')
+    expect(proposed?.separates).toEqual([{ cause: 'condenser-airflow', stage: 'single' }])
   })
 
   it('puts only the best few in words when a limit is given, in the same order as the whole list', () => {
