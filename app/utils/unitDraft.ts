@@ -2,14 +2,14 @@
 // re-render) and turns it into the API's numbers only when checking or sending.
 import { STAGES_OF_KIND } from '#shared/schemas/diagnosis'
 import type { UnitInputDraft } from '#shared/schemas/equipment'
-import type { Stage, UnitKind } from '#shared/types/diagnosis'
+import type { MeteringDevice, Stage, UnitKind } from '#shared/types/diagnosis'
 import type { EquipmentClass } from '#shared/types/equipment'
 import type { UnitDto } from '#shared/types/equipment-dto'
 import { decimalText, decimalOrNull } from './decimal'
 
 export const STAGE_NUMBER_FIELDS = ['chargeG', 'volumeL', 'referenceStandingPressureKpa', 'referenceAmbientC', 'ratedCurrentA', 'designPressureKpa'] as const
 export type StageNumberField = (typeof STAGE_NUMBER_FIELDS)[number]
-export type StageDraft = { refrigerant: string } & Record<StageNumberField, string>
+export type StageDraft = { refrigerant: string; meteringDevice: MeteringDevice | '' } & Record<StageNumberField, string>
 
 export interface UnitDraft {
   name: string
@@ -25,7 +25,7 @@ export interface UnitDraft {
   stages: Record<Stage, StageDraft>
 }
 
-const blankStage = (refrigerant = ''): StageDraft => ({ refrigerant, chargeG: '', volumeL: '', referenceStandingPressureKpa: '', referenceAmbientC: '', ratedCurrentA: '', designPressureKpa: '' })
+const blankStage = (refrigerant = ''): StageDraft => ({ refrigerant, meteringDevice: '', chargeG: '', volumeL: '', referenceStandingPressureKpa: '', referenceAmbientC: '', ratedCurrentA: '', designPressureKpa: '' })
 
 /** An empty form, optionally at a preselected site. */
 export function emptyUnitDraft(siteId = ''): UnitDraft {
@@ -43,7 +43,7 @@ export function unitDraftFrom(unit: UnitDto): UnitDraft {
     designCabinetC: decimalText(unit.design.cabinetC), designCascadeHxC: decimalText(unit.design.cascadeHxC),
   })
   for (const s of unit.stages) {
-    draft.stages[s.stage] = { refrigerant: s.refrigerant, ...Object.fromEntries(STAGE_NUMBER_FIELDS.map((f) => [f, decimalText(s[f])])) } as StageDraft
+    draft.stages[s.stage] = { refrigerant: s.refrigerant, meteringDevice: s.meteringDevice ?? '', ...Object.fromEntries(STAGE_NUMBER_FIELDS.map((f) => [f, decimalText(s[f])])) } as StageDraft
   }
   return draft
 }
@@ -63,7 +63,7 @@ export function unitInputFrom(draft: UnitDraft): UnitInputDraft {
     designCascadeHxC: draft.kind === 'cascade' ? decimalOrNull(draft.designCascadeHxC) : null,
     stages: stagesOfDraft(draft).map((stage) => {
       const s = draft.stages[stage]
-      return { stage, refrigerant: s.refrigerant, ...Object.fromEntries(STAGE_NUMBER_FIELDS.map((f) => [f, decimalOrNull(s[f])])) }
+      return { stage, refrigerant: s.refrigerant, meteringDevice: s.meteringDevice || null, ...Object.fromEntries(STAGE_NUMBER_FIELDS.map((f) => [f, decimalOrNull(s[f])])) }
     }),
   }
 }

@@ -13,7 +13,7 @@ import { DESIGNATIONS, findRefrigerant, isDesignation } from '#shared/utils/prop
 import { CUSTOMER_SORTS, EQUIPMENT_CLASSES, SORT_DIRECTIONS, UNIT_SORTS } from '#shared/types/equipment'
 import { NAMEPLATE_BASES } from '#shared/types/equipment-dto'
 import { UNIT_KINDS, type Stage, type UnitKind } from '#shared/types/diagnosis'
-import { STAGES_OF_KIND, stageSchema, unitKindSchema, wordEnum } from './diagnosis'
+import { STAGES_OF_KIND, meteringDeviceSchema, stageSchema, unitKindSchema, wordEnum } from './diagnosis'
 
 const figure = (n: number) => n.toLocaleString('en-GB').replace(/,/g, ' ')
 
@@ -117,6 +117,8 @@ export const UnitStageInputSchema = z
     referenceAmbientC: measured('Reference ambient', '°C', -40, 60).optional(),
     ratedCurrentA: measured('Rated current', 'A', 0.1, 500).optional(),
     designPressureKpa: measured('Design pressure', 'kPa absolute', 100, 30_000).optional(),
+    /** Capillary tube or expansion valve; null or absent when not known. */
+    meteringDevice: meteringDeviceSchema.nullable().optional(),
   })
   .strict()
   .superRefine((s, ctx) => {

@@ -1,4 +1,4 @@
-import type { Stage as StageName, UnitKind } from './diagnosis'
+import type { MeteringDevice, Stage as StageName, UnitKind } from './diagnosis'
 import type { EquipmentClass } from './equipment'
 
 export interface UnitStageDto {
@@ -11,6 +11,8 @@ export interface UnitStageDto {
   ratedCurrentA: number | null
   /** Design (maximum allowable) pressure of the stage from its nameplate, kPa absolute. */
   designPressureKpa: number | null
+  /** How the stage is fed (capillary tube or expansion valve); null or absent when not recorded. */
+  meteringDevice?: MeteringDevice | null
 }
 
 /** A unit as `GET /api/units` returns it; `customer` and `site` are names (contract). */

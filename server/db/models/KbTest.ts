@@ -13,6 +13,7 @@ export class KbTest extends Model<InferAttributes<KbTest>, InferCreationAttribut
   declare hotWork: boolean
   declare stages: unknown
   declare answeredBy: string | null
+  declare meteringDevices: unknown
   declare sameMeasurementAs: unknown
   declare safetyNotes: unknown
   declare outcomes: unknown
@@ -32,6 +33,7 @@ export class KbTest extends Model<InferAttributes<KbTest>, InferCreationAttribut
         hotWork: { type: DataTypes.BOOLEAN, allowNull: false },
         stages: { type: DataTypes.JSONB, allowNull: false },
         answeredBy: { type: DataTypes.STRING(40), allowNull: true },
+        meteringDevices: { type: DataTypes.JSONB, allowNull: true },
         sameMeasurementAs: { type: DataTypes.JSONB, allowNull: true },
         safetyNotes: { type: DataTypes.JSONB, allowNull: false },
         outcomes: { type: DataTypes.JSONB, allowNull: false },

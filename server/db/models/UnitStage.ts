@@ -1,7 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type ForeignKey, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize'
 import type { Unit } from './Unit'
 
-import type { Stage as StageName } from '#shared/types/diagnosis'
+import type { MeteringDevice, Stage as StageName } from '#shared/types/diagnosis'
 
 /** One refrigeration circuit of a unit with its nameplate data. */
 export class UnitStage extends Model<InferAttributes<UnitStage>, InferCreationAttributes<UnitStage>> {
@@ -15,6 +15,7 @@ export class UnitStage extends Model<InferAttributes<UnitStage>, InferCreationAt
   declare referenceAmbientC: number | null
   declare ratedCurrentA: number | null
   declare designPressureKpa: CreationOptional<number | null>
+  declare meteringDevice: CreationOptional<MeteringDevice | null>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 
@@ -30,6 +31,7 @@ export class UnitStage extends Model<InferAttributes<UnitStage>, InferCreationAt
         referenceAmbientC: { type: DataTypes.DOUBLE, allowNull: true },
         ratedCurrentA: { type: DataTypes.DOUBLE, allowNull: true },
         designPressureKpa: { type: DataTypes.DOUBLE, allowNull: true },
+        meteringDevice: { type: DataTypes.STRING(20), allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -37,6 +37,7 @@ function toDto(unit: UnitWithParts): UnitDto {
         referenceAmbientC: s.referenceAmbientC,
         ratedCurrentA: s.ratedCurrentA,
         designPressureKpa: s.designPressureKpa ?? null,
+        meteringDevice: s.meteringDevice ?? null,
       })),
   }
 }
@@ -142,6 +143,7 @@ function stageRows(unitId: number, stages: UnitStageInput[]) {
     referenceStandingPressureKpa: s.referenceStandingPressureKpa ?? null, referenceAmbientC: s.referenceAmbientC ?? null,
     ratedCurrentA: s.ratedCurrentA ?? null,
     designPressureKpa: s.designPressureKpa ?? null,
+    meteringDevice: s.meteringDevice ?? null,
   }))
 }
 

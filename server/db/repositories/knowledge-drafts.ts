@@ -22,8 +22,8 @@ export async function copyVersionAsDraft(organisationId: number, fromId: number,
   const q = (sql: string) => KbVersion.sequelize!.query(sql, { replacements: { from: fromId, to: draft.id }, transaction, type: QueryTypes.INSERT })
   await q(`INSERT INTO kb_causes (version_id, slug, title, short, description, stages, priors, created_at, updated_at)
            SELECT :to, slug, title, short, description, stages, priors, now(), now() FROM kb_causes WHERE version_id = :from ORDER BY id`)
-  await q(`INSERT INTO kb_tests (version_id, slug, title, procedure, minutes, opens_system, hot_work, stages, answered_by, same_measurement_as, safety_notes, outcomes, created_at, updated_at)
-           SELECT :to, slug, title, procedure, minutes, opens_system, hot_work, stages, answered_by, same_measurement_as, safety_notes, outcomes, now(), now() FROM kb_tests WHERE version_id = :from ORDER BY id`)
+  await q(`INSERT INTO kb_tests (version_id, slug, title, procedure, minutes, opens_system, hot_work, stages, metering_devices, answered_by, same_measurement_as, safety_notes, outcomes, created_at, updated_at)
+           SELECT :to, slug, title, procedure, minutes, opens_system, hot_work, stages, metering_devices, answered_by, same_measurement_as, safety_notes, outcomes, now(), now() FROM kb_tests WHERE version_id = :from ORDER BY id`)
   await q(`INSERT INTO kb_rules (version_id, name, subject, definition, examples, created_at, updated_at)
            SELECT :to, name, subject, definition, examples, now(), now() FROM kb_rules WHERE version_id = :from ORDER BY id`)
   return draft.id
@@ -50,6 +50,7 @@ export async function loadVersionItems(versionId: number, transaction?: Transact
       (t) =>
         ({
           slug: t.slug, title: t.title, minutes: t.minutes, opensSystem: t.opensSystem, hotWork: t.hotWork, stages: t.stages,
+          ...(t.meteringDevices != null ? { meteringDevices: t.meteringDevices } : {}),
           ...(t.answeredBy !== null ? { answeredBy: t.answeredBy } : {}), ...(t.sameMeasurementAs !== null ? { sameMeasurementAs: t.sameMeasurementAs } : {}),
           safetyNotes: t.safetyNotes, outcomes: t.outcomes, procedure: t.procedure, lockVersion: t.lockVersion,
         }) as TestDef & { lockVersion: number },
@@ -91,7 +92,7 @@ export async function updateTestRow(versionId: number, slug: string, lockVersion
   const [n] = await KbTest.update(
     {
       title: test.title, procedure: test.procedure, minutes: test.minutes, opensSystem: test.opensSystem, hotWork: test.hotWork, stages: test.stages,
-      answeredBy: test.answeredBy ?? null, sameMeasurementAs: test.sameMeasurementAs ?? null, safetyNotes: test.safetyNotes, outcomes: test.outcomes,
+      meteringDevices: test.meteringDevices ?? null, answeredBy: test.answeredBy ?? null, sameMeasurementAs: test.sameMeasurementAs ?? null, safetyNotes: test.safetyNotes, outcomes: test.outcomes,
       lockVersion: lockVersion + 1,
     },
     { where: { versionId, slug, lockVersion }, transaction },

@@ -52,7 +52,7 @@ export async function insertKnowledgeBaseVersion(
   )
   const versionId = version.id
   await KbCause.bulkCreate(source.causes.map((c) => ({ versionId, ...c })), { transaction })
-  await KbTest.bulkCreate(source.tests.map((t) => ({ versionId, answeredBy: null, sameMeasurementAs: null, ...t })), { transaction })
+  await KbTest.bulkCreate(source.tests.map((t) => ({ versionId, meteringDevices: null, answeredBy: null, sameMeasurementAs: null, ...t })), { transaction })
   await KbRule.bulkCreate(
     source.rules.map((r) => ({ versionId, name: r.name, subject: r.subject ?? 'general', definition: r, examples: meta.examples?.[r.name] ?? [] })),
     { transaction },
@@ -92,7 +92,7 @@ export async function loadVersionContent(version: KbVersionRecord): Promise<Know
       (t) =>
         ({
           slug: t.slug, title: t.title, minutes: t.minutes, opensSystem: t.opensSystem, hotWork: t.hotWork,
-          stages: t.stages, ...(t.answeredBy !== null ? { answeredBy: t.answeredBy } : {}), ...(t.sameMeasurementAs !== null ? { sameMeasurementAs: t.sameMeasurementAs } : {}),
+          stages: t.stages, ...(t.meteringDevices != null ? { meteringDevices: t.meteringDevices } : {}), ...(t.answeredBy !== null ? { answeredBy: t.answeredBy } : {}), ...(t.sameMeasurementAs !== null ? { sameMeasurementAs: t.sameMeasurementAs } : {}),
           safetyNotes: t.safetyNotes, outcomes: t.outcomes, procedure: t.procedure,
         }) as TestDef,
     ),

@@ -65,6 +65,7 @@ export function rankRequestFor(unit: UnitDto, state: Pick<CaseState, 'symptoms' 
         if (s.referenceStandingPressureKpa !== null) stage.referenceStandingPressureKpa = s.referenceStandingPressureKpa
         if (s.referenceAmbientC !== null) stage.referenceAmbientC = s.referenceAmbientC
         if (s.ratedCurrentA !== null) stage.ratedCurrentA = s.ratedCurrentA
+        if (s.meteringDevice) stage.meteringDevice = s.meteringDevice
         return stage
       }),
       design,

@@ -1,4 +1,4 @@
-import type { UnitKind } from '#shared/types/diagnosis'
+import type { MeteringDevice, UnitKind } from '#shared/types/diagnosis'
 import type { EquipmentClass } from '#shared/types/equipment'
 import type { WordForm, WordLabel } from './words'
 
@@ -26,4 +26,15 @@ export const EQUIPMENT_CLASS_WORDS: Readonly<Record<EquipmentClass, WordLabel>> 
 /** "Ultra-low freezer". */
 export function equipmentClassLabel(equipmentClass: EquipmentClass, form: WordForm = 'long'): string {
   return EQUIPMENT_CLASS_WORDS[equipmentClass]?.[form] ?? String(equipmentClass)
+}
+
+/** How a stage is fed with liquid. */
+export const METERING_DEVICE_WORDS: Readonly<Record<MeteringDevice, WordLabel>> = {
+  capillary: { short: 'Capillary tube', long: 'Capillary tube (fixed restriction)' },
+  'expansion-valve': { short: 'Expansion valve', long: 'Thermostatic or electronic expansion valve' },
+}
+
+/** "Capillary tube"; "not recorded" when the unit record does not say. */
+export function meteringDeviceLabel(device: MeteringDevice | null | undefined, form: WordForm = 'short'): string {
+  return device ? METERING_DEVICE_WORDS[device]?.[form] ?? String(device) : 'not recorded'
 }

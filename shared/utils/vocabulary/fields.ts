@@ -42,6 +42,7 @@ export const FIELD_WORDS: Readonly<Record<string, FieldWord>> = {
   referenceAmbientC: { label: 'ambient at the reference pressure' },
   ratedCurrentA: { label: 'rated current' },
   designPressureKpa: { label: 'design pressure' },
+  meteringDevice: { label: 'metering device' },
   designCabinetC: { label: 'Design cabinet temperature' },
   designCascadeHxC: { label: 'Design cascade heat exchanger temperature' },
   siteId: { label: 'Site' },

@@ -19,7 +19,7 @@ export {
   CASE_STATE_WORDS, DIRECTION_WORDS, EMAIL_STATE_WORDS, JOB_STATE_WORDS, UPLOAD_PURPOSE_WORDS, caseStateLabel, directionLabel, emailStateLabel,
   jobStateLabel, uploadPurposeLabel,
 } from './states'
-export { EQUIPMENT_CLASS_WORDS, UNIT_KIND_WORDS, equipmentClassLabel, unitKindLabel } from './equipment'
+export { EQUIPMENT_CLASS_WORDS, METERING_DEVICE_WORDS, UNIT_KIND_WORDS, equipmentClassLabel, meteringDeviceLabel, unitKindLabel } from './equipment'
 export { EVENT_WORDS, causeOnStage, eventDetail, eventLabel } from './events'
 export { FIELD_WORDS, fieldMessage, fieldName } from './fields'
 export { inPlainWords, labelOfApiWord } from './text'

@@ -13,8 +13,8 @@ describe('units: create and edit', () => {
     expect(cascade.status).toBe(201)
     expect(cascade.body).toMatchObject({ id: expect.any(Number), name: body.name, kind: 'cascade', customer, siteId, design: { cabinetC: -86, cascadeHxC: -35 } })
     expect(cascade.body.stages).toEqual([
-      { stage: 'high', refrigerant: 'R290', chargeG: 150, volumeL: null, referenceStandingPressureKpa: null, referenceAmbientC: null, ratedCurrentA: 5.2, designPressureKpa: null },
-      { stage: 'low', refrigerant: 'R170', chargeG: 90, volumeL: 7.5, referenceStandingPressureKpa: 700, referenceAmbientC: 20, ratedCurrentA: 3.4, designPressureKpa: 2800 },
+      { stage: 'high', refrigerant: 'R290', chargeG: 150, volumeL: null, referenceStandingPressureKpa: null, referenceAmbientC: null, ratedCurrentA: 5.2, designPressureKpa: null, meteringDevice: null },
+      { stage: 'low', refrigerant: 'R170', chargeG: 90, volumeL: 7.5, referenceStandingPressureKpa: 700, referenceAmbientC: 20, ratedCurrentA: 3.4, designPressureKpa: 2800, meteringDevice: null },
     ])
 
     const single = await tech.post('/api/units', singleBody(siteId, { stages: [{ stage: 'single', refrigerant: 'r-600a', chargeG: 60 }] }))
@@ -65,6 +65,40 @@ describe('units: create and edit', () => {
     expect(errorsOf(badPatch).stages).toBeDefined()
     expect((await tech.patch(`/api/units/${saved.id}`, { kind: 'single-stage' })).status).toBe(400)
     expect((await tech.get(`/api/units/${saved.id}`)).body).toEqual(saved)
+  })
+
+  it("keeps each stage's metering device, and a case of the unit leaves out the other device's faults and tests", async () => {
+    const tech = await signedIn(DEMO.tech)
+    const { siteId } = await customerWithSite(tech)
+    const bad = await tech.post('/api/units', singleBody(siteId, { stages: [{ stage: 'single', refrigerant: 'R290', chargeG: 145, meteringDevice: 'orifice' }] }))
+    expect(bad.status).toBe(400)
+    expect(errorsOf(bad)['stages.0.meteringDevice']).toBeDefined()
+
+    const made = await tech.post('/api/units', singleBody(siteId, { stages: [{ stage: 'single', refrigerant: 'R290', chargeG: 145, ratedCurrentA: 2.3, meteringDevice: 'capillary' }] }))
+    expect(made.status).toBe(201)
+    expect(made.body.stages[0]).toMatchObject({ meteringDevice: 'capillary' })
+    expect((await tech.get(`/api/units/${made.body.id}`)).body.stages[0].meteringDevice).toBe('capillary')
+
+    // A starved capillary freezer: on a capillary-fed stage neither valve fault is weighed, nor the valve check proposed.
+    const opened = await tech.post('/api/cases', { unitId: made.body.id, complaint: 'Freezer warm, compressor runs all the time' })
+    const ranked = await tech.post(`/api/cases/${opened.body.id}/readings`, {
+      readings: [
+        { quantity: 'cabinetTemperature', value: -8, unit: 'C' },
+        { quantity: 'ambientTemperature', value: 23, unit: 'C' },
+        { quantity: 'compressorRunning', stage: 'single', value: true, unit: 'bool' },
+        { quantity: 'compressorCurrent', stage: 'single', value: 1.6, unit: 'A' },
+      ],
+    })
+    expect(ranked.status).toBe(200)
+    const causes = ranked.body.ranking.causes.map((c: { cause: string }) => c.cause)
+    expect(causes).not.toContain('expansion-valve-underfeeding')
+    expect(causes).not.toContain('expansion-valve-overfeeding')
+    expect(ranked.body.ranking.tests.map((t: { test: string }) => t.test)).not.toContain('expansion-valve-check')
+
+    // Cleared with null: not recorded again.
+    const cleared = await tech.patch(`/api/units/${made.body.id}`, { stages: [{ stage: 'single', refrigerant: 'R290', chargeG: 145, meteringDevice: null }] })
+    expect(cleared.status).toBe(200)
+    expect(cleared.body.stages[0].meteringDevice).toBeNull()
   })
 
   it('refuses a serial already on the register with 409 and a field error', async () => {

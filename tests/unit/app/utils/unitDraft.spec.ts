@@ -7,8 +7,8 @@ const unit: UnitDto = {
   id: 3, name: 'Freezer Z-3', kind: 'cascade', equipmentClass: 'ult-freezer', model: 'Icebox 9', serial: 'IB9-3', location: '',
   customer: 'C', customerId: 1, site: 'S', siteId: 2, siteAltitudeM: 0, design: { cabinetC: -80, cascadeHxC: null },
   stages: [
-    { stage: 'high', refrigerant: 'R404A', chargeG: 520, volumeL: null, referenceStandingPressureKpa: null, referenceAmbientC: null, ratedCurrentA: 6.2, designPressureKpa: null },
-    { stage: 'low', refrigerant: 'R170', chargeG: 210, volumeL: 9.5, referenceStandingPressureKpa: 790, referenceAmbientC: 21, ratedCurrentA: 4.1, designPressureKpa: 2800 },
+    { stage: 'high', refrigerant: 'R404A', chargeG: 520, volumeL: null, referenceStandingPressureKpa: null, referenceAmbientC: null, ratedCurrentA: 6.2, designPressureKpa: null, meteringDevice: 'capillary' },
+    { stage: 'low', refrigerant: 'R170', chargeG: 210, volumeL: 9.5, referenceStandingPressureKpa: 790, referenceAmbientC: 21, ratedCurrentA: 4.1, designPressureKpa: 2800, meteringDevice: null },
   ],
 }
 
@@ -17,6 +17,9 @@ describe('unit form drafts', () => {
     const input = UnitInputSchema.parse(unitInputFrom(unitDraftFrom(unit)))
     expect(input).toMatchObject({ siteId: 2, designCabinetC: -80, designCascadeHxC: null })
     expect(input.stages).toEqual(unit.stages)
+    // A stage whose metering device is not recorded shows "Not recorded" (empty) in the form and sends null.
+    expect(unitDraftFrom(unit).stages.low.meteringDevice).toBe('')
+    expect(unitDraftFrom(unit).stages.high.meteringDevice).toBe('capillary')
   })
 
   it('sends only the stages of the chosen kind and keeps the others in the draft', () => {
