@@ -7,7 +7,7 @@ import { ChargingBodySchema, SubstitutionBodySchema } from '#shared/schemas/char
 import type { ChargingDto, SubstitutionDto } from '#shared/types/charging-dto'
 import type { UnitStageDto } from '#shared/types/equipment-dto'
 import type { Stage } from '#shared/types/diagnosis'
-import type { NameplateRefillInput } from '#shared/schemas/equipment'
+import { StandingReferenceSchema, type NameplateRefillInput } from '#shared/schemas/equipment'
 import { chargingCheck, substitutionPlan } from '#shared/utils/calculator'
 import type { SubstitutionBasis } from '#shared/utils/charging'
 import { formatPressure, formatQuantity } from '#shared/utils/format'
@@ -156,9 +156,9 @@ export function planRecordBody(plan: SubstitutionDto, target: PlanSaveTarget, ow
     : 'weigh it in: its standing pressure cannot measure it'
   const figures = `${SUBSTITUTION_BASIS_WORDS[plan.basis]} plan for ${plan.volumeL} L: ${grams} of ${plan.to.designation} for the nameplate ${formatQuantity(plan.from.chargeG, 'g', 0)} of ${plan.from.designation}; ${chargeTo}.`
   const note = [figures, ownNote.trim()].filter(Boolean).join(' ').slice(0, 2000)
-  const standing = plan.chargeTo && plan.standingPressureKpa >= 1 && plan.standingPressureKpa <= 15_000 && plan.ambientC >= -40 && plan.ambientC <= 60
-    ? { standingPressureKpa: Math.round(plan.standingPressureKpa * 10) / 10, ambientC: plan.ambientC }
-    : {}
+  // Within the range a stage's reference may take (the route's own schema judges it).
+  const reference = StandingReferenceSchema.safeParse({ standingPressureKpa: Math.round(plan.standingPressureKpa * 10) / 10, ambientC: plan.ambientC })
+  const standing = plan.chargeTo && reference.success ? reference.data : {}
   return {
     stage: target.stage, refrigerant: plan.to.designation, chargeG: Math.round(plan.chargeG * 10) / 10, basis: plan.basis, note,
     ...standing,

@@ -105,6 +105,24 @@ const refrigerant = z
     error: (issue) => (issue.input === '' ? 'Pick the refrigerant' : `Unknown refrigerant ${JSON.stringify(issue.input)}; pick one of ${DESIGNATIONS.join(', ')}`),
   })
 
+/** A standing pressure (absolute) and the ambient it stands at: the range a stage's reference may take. */
+const standingKpa = (label: string) => measured(label, 'kPa absolute', 1, 15_000)
+const standingAmbientC = (label: string) => measured(label, '°C', -40, 60)
+
+/**
+ * A standing pressure means nothing without the ambient it was read at, and the reverse: the two
+ * fields come together or not at all; the missing one is named.
+ */
+function pressureWithAmbient<K extends string>(pressureKey: K, ambientKey: K, message: string) {
+  return (s: Partial<Record<K, unknown>>, ctx: z.RefinementCtx) => {
+    const hasPressure = s[pressureKey] != null
+    if (hasPressure !== (s[ambientKey] != null)) ctx.addIssue({ code: 'custom', path: [hasPressure ? ambientKey : pressureKey], message })
+  }
+}
+
+/** The figures a refill keeps as the stage's new reference standing pressure. */
+export const StandingReferenceSchema = z.object({ standingPressureKpa: standingKpa('Standing pressure'), ambientC: standingAmbientC('Ambient') }).strict()
+
 /** One refrigeration circuit of a unit, as entered from the nameplate. */
 export const UnitStageInputSchema = z
   .object({
@@ -113,25 +131,15 @@ export const UnitStageInputSchema = z
     chargeG: measured('Charge', 'g', 1, 500_000).optional(),
     // Includes the expansion tank: the standing pressure of a low stage depends on the whole volume.
     volumeL: measured('Volume', 'L', 0.1, 5000).optional(),
-    referenceStandingPressureKpa: measured('Reference standing pressure', 'kPa absolute', 1, 15_000).optional(),
-    referenceAmbientC: measured('Reference ambient', '°C', -40, 60).optional(),
+    referenceStandingPressureKpa: standingKpa('Reference standing pressure').optional(),
+    referenceAmbientC: standingAmbientC('Reference ambient').optional(),
     ratedCurrentA: measured('Rated current', 'A', 0.1, 500).optional(),
     designPressureKpa: measured('Design pressure', 'kPa absolute', 100, 30_000).optional(),
     /** Capillary tube or expansion valve; null or absent when not known. */
     meteringDevice: meteringDeviceSchema.nullable().optional(),
   })
   .strict()
-  .superRefine((s, ctx) => {
-    // A standing pressure means nothing without the ambient it was taken at, and the reverse.
-    const hasPressure = s.referenceStandingPressureKpa != null
-    if (hasPressure !== (s.referenceAmbientC != null)) {
-      ctx.addIssue({
-        code: 'custom',
-        path: [hasPressure ? 'referenceAmbientC' : 'referenceStandingPressureKpa'],
-        message: 'Give the reference standing pressure and its ambient temperature together, or neither',
-      })
-    }
-  })
+  .superRefine(pressureWithAmbient('referenceStandingPressureKpa', 'referenceAmbientC', 'Give the reference standing pressure and its ambient temperature together, or neither'))
 export type UnitStageInput = z.infer<typeof UnitStageInputSchema>
 
 const unitFields = {
@@ -216,18 +224,9 @@ export const NameplateRefillSchema = z
      * Where the new fill stands (absolute) at a stated ambient, planned or measured: it becomes the
      * stage's reference standing pressure. Without it, a new refrigerant or charge clears the old one.
      */
-    standingPressureKpa: measured('Standing pressure', 'kPa absolute', 1, 15_000).optional(),
-    ambientC: measured('Ambient', '°C', -40, 60).optional(),
+    standingPressureKpa: StandingReferenceSchema.shape.standingPressureKpa.optional(),
+    ambientC: StandingReferenceSchema.shape.ambientC.optional(),
   })
   .strict()
-  .superRefine((s, ctx) => {
-    const hasPressure = s.standingPressureKpa != null
-    if (hasPressure !== (s.ambientC != null)) {
-      ctx.addIssue({
-        code: 'custom',
-        path: [hasPressure ? 'ambientC' : 'standingPressureKpa'],
-        message: 'Give the standing pressure and the ambient temperature it stands at together, or neither',
-      })
-    }
-  })
+  .superRefine(pressureWithAmbient('standingPressureKpa', 'ambientC', 'Give the standing pressure and the ambient temperature it stands at together, or neither'))
 export type NameplateRefillInput = z.infer<typeof NameplateRefillSchema>

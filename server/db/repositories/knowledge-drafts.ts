@@ -5,6 +5,7 @@ import type { CauseDef, RuleDef, TestDef } from '#server/domain/diagnosis/knowle
 import type { FindingExample } from '#server/domain/knowledge/examples-schema'
 import type { StatusChange, VersionState } from '#server/domain/knowledge/workflow'
 import { KbCause, KbRule, KbTest, KbVersion } from '../models'
+import { testDefFromRow } from './knowledge'
 
 /** A version row locked until the transaction ends, as the workflow reads it; null when not the organisation's. */
 export async function lockVersionRow(organisationId: number, id: number, transaction: Transaction): Promise<(VersionState & { label: string }) | null> {
@@ -46,15 +47,7 @@ export async function loadVersionItems(versionId: number, transaction?: Transact
   ])
   return {
     causes: causes.map((c) => ({ slug: c.slug, title: c.title, ...(c.short !== null ? { short: c.short } : {}), stages: c.stages, priors: c.priors, description: c.description, lockVersion: c.lockVersion }) as CauseDef & { lockVersion: number }),
-    tests: tests.map(
-      (t) =>
-        ({
-          slug: t.slug, title: t.title, minutes: t.minutes, opensSystem: t.opensSystem, hotWork: t.hotWork, stages: t.stages,
-          ...(t.meteringDevices != null ? { meteringDevices: t.meteringDevices } : {}),
-          ...(t.answeredBy !== null ? { answeredBy: t.answeredBy } : {}), ...(t.sameMeasurementAs !== null ? { sameMeasurementAs: t.sameMeasurementAs } : {}),
-          safetyNotes: t.safetyNotes, outcomes: t.outcomes, procedure: t.procedure, lockVersion: t.lockVersion,
-        }) as TestDef & { lockVersion: number },
-    ),
+    tests: tests.map((t) => ({ ...testDefFromRow(t), lockVersion: t.lockVersion })),
     findings: rules.map((r) => ({ finding: r.definition as RuleDef, examples: (r.examples ?? []) as FindingExample[], lockVersion: r.lockVersion })),
   }
 }

@@ -88,14 +88,7 @@ export async function loadVersionContent(version: KbVersionRecord): Promise<Know
   return {
     version: { id: version.id, label: version.label, status: version.status === 'published' ? 'published' : 'draft' },
     causes: causes.map((c) => ({ slug: c.slug, title: c.title, ...(c.short !== null ? { short: c.short } : {}), stages: c.stages, priors: c.priors, description: c.description }) as CauseDef),
-    tests: tests.map(
-      (t) =>
-        ({
-          slug: t.slug, title: t.title, minutes: t.minutes, opensSystem: t.opensSystem, hotWork: t.hotWork,
-          stages: t.stages, ...(t.meteringDevices != null ? { meteringDevices: t.meteringDevices } : {}), ...(t.answeredBy !== null ? { answeredBy: t.answeredBy } : {}), ...(t.sameMeasurementAs !== null ? { sameMeasurementAs: t.sameMeasurementAs } : {}),
-          safetyNotes: t.safetyNotes, outcomes: t.outcomes, procedure: t.procedure,
-        }) as TestDef,
-    ),
+    tests: tests.map(testDefFromRow),
     rules: rules.map((r) => r.definition as RuleDef),
   }
 }
@@ -215,4 +208,15 @@ export async function latestAccuracyJob(organisationId: number, versionId: numbe
     { replacements: { organisationId, version: String(versionId) }, type: QueryTypes.SELECT },
   )
   return row ? { kind: row.kind, result: row.result, finishedAt: new Date(row.finished_at) } : null
+}
+
+/** A stored test as the knowledge base reads it: the optional fields only when set. */
+export function testDefFromRow(t: KbTest): TestDef {
+  return {
+    slug: t.slug, title: t.title, minutes: t.minutes, opensSystem: t.opensSystem, hotWork: t.hotWork, stages: t.stages,
+    ...(t.meteringDevices != null ? { meteringDevices: t.meteringDevices } : {}),
+    ...(t.answeredBy !== null ? { answeredBy: t.answeredBy } : {}),
+    ...(t.sameMeasurementAs !== null ? { sameMeasurementAs: t.sameMeasurementAs } : {}),
+    safetyNotes: t.safetyNotes, outcomes: t.outcomes, procedure: t.procedure,
+  } as TestDef
 }

@@ -91,13 +91,16 @@ function outcomeColumns(g: Gain, indices: number[]): Map<number, Float64Array> {
   return columns
 }
 
-/** Total-variation distance between the outcome distributions of two hypotheses. */
-function separation(columns: Map<number, Float64Array>, i: number, j: number): number {
-  const a = columns.get(i) as Float64Array
-  const b = columns.get(j) as Float64Array
+/** Total-variation distance between two outcome distributions. */
+function totalVariation(a: Float64Array, b: Float64Array): number {
   let tv = 0
   for (let o = 0; o < a.length; o++) tv += Math.abs((a[o] as number) - (b[o] as number))
   return tv / 2
+}
+
+/** Total-variation distance between the outcome distributions of two hypotheses. */
+function separation(columns: Map<number, Float64Array>, i: number, j: number): number {
+  return totalVariation(columns.get(i) as Float64Array, columns.get(j) as Float64Array)
 }
 
 const STAGE_WORDS: Record<Stage, string> = { high: ' on the high stage', low: ' on the low stage', single: '' }
@@ -113,7 +116,6 @@ interface Leading {
   p: number
 }
 
-/** "Settles a leak against a blockage on the low stage." from the best-separated pair of leading hypotheses. */
 /** Below this total-variation distance from the rest, a test says nothing about a cause worth naming. */
 const SPEAKS_TO_FROM = 0.15
 
@@ -133,16 +135,17 @@ function mostInformed(g: Gain, everyone: Leading[]): Leading | undefined {
   for (let o = 0; o < outcomes; o++) mixture[o] = (mixture[o] as number) / mass
   let best: { x: Leading; tv: number; score: number } | undefined
   for (const x of everyone) {
-    const col = columns.get(x.i) as Float64Array
-    let tv = 0
-    for (let o = 0; o < outcomes; o++) tv += Math.abs((col[o] as number) - (mixture[o] as number))
-    tv /= 2
+    const tv = totalVariation(columns.get(x.i) as Float64Array, mixture)
     const score = Math.sqrt(x.p) * tv
     if (!best || score > best.score) best = { x, tv, score }
   }
   return best && best.tv >= SPEAKS_TO_FROM ? best.x : undefined
 }
 
+/**
+ * "Settles a leak against a blockage on the low stage." from the best-separated pair of leading
+ * hypotheses; failing a pair, the one cause the test rules in or out.
+ */
 function valueInWords(g: Gain, leading: Leading[], everyone: Leading[], shortNames: Map<string, string>): { text: string; separates: HypothesisRef[] } {
   const columns = outcomeColumns(g, leading.map((x) => x.i))
   let best: { a: Leading; b: Leading; score: number } | undefined
